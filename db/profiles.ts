@@ -1,0 +1,137 @@
+import type { Db } from "./connection.ts";
+import { fromBlob } from "./floatBlob.ts";
+
+/** Which profiles to read; every field optional, combined with AND. */
+export interface ProfileFilter {
+  genotype?: string;
+  channel?: string;
+  embryo?: string;
+  importId?: number;
+  profileIds?: number[];
+  /** Match any stored metadata key, e.g. { session: "2026-03-04" } (embryo columns or free-form metadata). */
+  metadata?: Record<string, string>;
+  limit?: number;
+  offset?: number;
+}
+
+export interface ProfileSummary {
+  profileId: number;
+  embryoId: number;
+  embryo: string;
+  genotype: string;
+  stage: string | null;
+  ageS: number | null;
+  lengthUm: number | null;
+  dosage: number | null;
+  session: string | null;
+  metadata: Record<string, string>;
+  channel: string;
+  timeS: number | null;
+  positionUnit: "um" | "px" | "fraction";
+  pixelSizeUm: number | null;
+  nPoints: number;
+  droppedPoints: number;
+  flipped: boolean;
+  importId: number;
+  fileName: string;
+  /** First and last position in µm. */
+  rangeUm: [number, number];
+}
+
+export interface ProfileData extends ProfileSummary {
+  positionsUm: Float64Array;
+  positionsRaw: Float64Array;
+  intensities: Float64Array;
+}
+
+const EMBRYO_COLUMNS = new Set(["genotype", "stage", "session"]);
+
+function whereClause(f: ProfileFilter): { sql: string; params: unknown[] } {
+  const conds: string[] = [];
+  const params: unknown[] = [];
+  if (f.genotype !== undefined) { conds.push("e.genotype = ?"); params.push(f.genotype); }
+  if (f.channel !== undefined) { conds.push("p.channel = ?"); params.push(f.channel); }
+  if (f.embryo !== undefined) { conds.push("e.label = ?"); params.push(f.embryo); }
+  if (f.importId !== undefined) { conds.push("p.import_id = ?"); params.push(f.importId); }
+  if (f.profileIds !== undefined) {
+    conds.push(`p.id IN (${f.profileIds.map(() => "?").join(",") || "NULL"})`);
+    params.push(...f.profileIds);
+  }
+  for (const [key, value] of Object.entries(f.metadata ?? {})) {
+    if (EMBRYO_COLUMNS.has(key)) conds.push(`e.${key} = ?`);
+    else {
+      conds.push("json_extract(e.metadata_json, '$.' || json_quote(?)) = ?");
+      params.push(key);
+    }
+    params.push(value);
+  }
+  return { sql: conds.length ? `WHERE ${conds.join(" AND ")}` : "", params };
+}
+
+const SELECT = `SELECT p.id AS profile_id, e.id AS embryo_id, e.label, e.genotype, e.stage, e.age_s, e.length_um, e.dosage, e.session, e.metadata_json,
+  p.channel, p.time_s, p.position_unit, p.pixel_size_um, p.n_points, p.dropped_points, p.flipped, p.import_id, i.file_name, p.positions_um`;
+
+function toSummary(r: Record<string, unknown>): ProfileSummary {
+  const um = fromBlob(r.positions_um as Buffer);
+  return {
+    profileId: r.profile_id as number,
+    embryoId: r.embryo_id as number,
+    embryo: r.label as string,
+    genotype: r.genotype as string,
+    stage: r.stage as string | null,
+    ageS: r.age_s as number | null,
+    lengthUm: r.length_um as number | null,
+    dosage: r.dosage as number | null,
+    session: r.session as string | null,
+    metadata: JSON.parse(r.metadata_json as string),
+    channel: r.channel as string,
+    timeS: r.time_s as number | null,
+    positionUnit: r.position_unit as ProfileSummary["positionUnit"],
+    pixelSizeUm: r.pixel_size_um as number | null,
+    nPoints: r.n_points as number,
+    droppedPoints: r.dropped_points as number,
+    flipped: r.flipped === 1,
+    importId: r.import_id as number,
+    fileName: r.file_name as string,
+    rangeUm: [um[0], um[um.length - 1]],
+  };
+}
+
+const ORDER = "ORDER BY e.genotype, e.label, p.channel, p.time_s";
+
+export function listProfiles(db: Db, filter: ProfileFilter = {}): ProfileSummary[] {
+  const { sql, params } = whereClause(filter);
+  const page = filter.limit !== undefined ? ` LIMIT ${Math.floor(filter.limit)} OFFSET ${Math.floor(filter.offset ?? 0)}` : "";
+  const rows = db.prepare(`${SELECT} FROM profiles p JOIN embryos e ON e.id = p.embryo_id JOIN imports i ON i.id = p.import_id ${sql} ${ORDER}${page}`).all(...params) as Record<string, unknown>[];
+  return rows.map(toSummary);
+}
+
+export function countProfiles(db: Db, filter: ProfileFilter = {}): number {
+  const { sql, params } = whereClause(filter);
+  return (db.prepare(`SELECT COUNT(*) AS n FROM profiles p JOIN embryos e ON e.id = p.embryo_id ${sql}`).get(...params) as { n: number }).n;
+}
+
+/** Profiles with their data arrays. */
+export function loadProfiles(db: Db, filter: ProfileFilter = {}): ProfileData[] {
+  const { sql, params } = whereClause(filter);
+  const rows = db
+    .prepare(`${SELECT}, p.positions_raw, p.intensities FROM profiles p JOIN embryos e ON e.id = p.embryo_id JOIN imports i ON i.id = p.import_id ${sql} ${ORDER}`)
+    .all(...params) as Record<string, unknown>[];
+  return rows.map((r) => ({
+    ...toSummary(r),
+    positionsUm: fromBlob(r.positions_um as Buffer),
+    positionsRaw: fromBlob(r.positions_raw as Buffer),
+    intensities: fromBlob(r.intensities as Buffer),
+  }));
+}
+
+/** Distinct values of a grouping field among stored embryos (genotype, channel, stage, session or a metadata key). */
+export function distinctValues(db: Db, field: string): string[] {
+  if (field === "channel") return (db.prepare("SELECT DISTINCT channel AS v FROM profiles ORDER BY 1").all() as { v: string }[]).map((r) => r.v);
+  if (EMBRYO_COLUMNS.has(field)) {
+    return (db.prepare(`SELECT DISTINCT ${field} AS v FROM embryos WHERE ${field} IS NOT NULL ORDER BY 1`).all() as { v: string }[]).map((r) => r.v);
+  }
+  return (
+    db.prepare("SELECT DISTINCT json_extract(metadata_json, '$.' || json_quote(?)) AS v FROM embryos WHERE v IS NOT NULL ORDER BY 1").all(field) as { v: string }[]
+  ).map((r) => r.v);
+}

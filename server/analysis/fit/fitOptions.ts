@@ -1,0 +1,86 @@
+import { z } from "zod";
+import { modelNames } from "../models/steadyStateModel.ts";
+
+const positive = z.number().positive();
+
+/**
+ * Every option of a steady-state fit and its default: the single home of
+ * the defaults. Parse user input with `FitOptions.parse` (or `safeParse`, to
+ * get issues with their paths); the numeric code receives the output type
+ * {@link ResolvedFitOptions} and never checks for undefined again.
+ */
+export const FitOptions = z
+  .strictObject({
+    /** Steady-state model; "exponential" by default. */
+    model: z.enum(modelNames).default("exponential"),
+    /** Fit only positions with xMinUm ≤ x ≤ xMaxUm (µm); the whole profile when absent. */
+    window: z
+      .strictObject({ xMinUm: z.number().optional(), xMaxUm: z.number().optional() })
+      .refine((w) => w.xMinUm === undefined || w.xMaxUm === undefined || w.xMinUm < w.xMaxUm, {
+        message: "window.xMinUm must be smaller than window.xMaxUm",
+        path: ["xMaxUm"],
+      })
+      .optional(),
+    /**
+     * Parameters held at a given value instead of fitted. A value for a
+     * parameter the chosen model does not have is ignored with a warning, so
+     * the same options can serve a comparison of several models.
+     */
+    fixed: z
+      .strictObject({
+        /** Decay length λ (µm). */
+        lambdaUm: positive.optional(),
+        /** Width s of the producing region of the `source` model (µm), e.g. from a marker stain. */
+        sourceWidthUm: positive.optional(),
+        /** Offset x0 of the power-law models (µm). */
+        x0Um: positive.optional(),
+        /** Exponent m of the `power-free` model. */
+        exponent: positive.optional(),
+        /** Additive background B (a.u.), e.g. measured outside the embryo. Implies background: false. */
+        background: z.number().optional(),
+      })
+      .prefault({}),
+    /** Fit an additive background B; true by default. When false, B = fixed.background or 0. */
+    background: z.boolean().default(true),
+    /**
+     * Point weights: "none" (ordinary least squares, the default);
+     * "inverse-variance", 1/σ² from a variance array supplied with the
+     * profile (e.g. the across-embryo variance of a mean profile);
+     * "poisson", 1/μ with μ the fitted intensity, for photon-counting noise
+     * whose variance grows with the signal.
+     */
+    weights: z.enum(["none", "inverse-variance", "poisson"]).default("none"),
+    /** Outlier-resistant loss, applied by iteratively reweighted least squares. */
+    robust: z
+      .strictObject({
+        /** "none" (squared residuals, the default), "soft-l1" or "huber". */
+        loss: z.enum(["none", "soft-l1", "huber"]).default("none"),
+        /**
+         * Residual size (a.u.) where the loss turns from quadratic to linear.
+         * By default 1.345 × the robust SD (scaled MAD) of an ordinary fit's residuals.
+         */
+        scale: positive.optional(),
+      })
+      .prefault({}),
+    /** Most Levenberg–Marquardt iterations on the nonlinear parameters; 200 by default. */
+    maxIterations: z.int().min(1).max(100_000).default(200),
+    /** Most reweighting rounds for robust or Poisson weights; 50 by default. */
+    maxReweightings: z.int().min(1).max(10_000).default(50),
+    tolerance: z
+      .strictObject({
+        /** Stop when no nonlinear parameter changes by more than this relative amount; 1e-10. */
+        step: positive.default(1e-10),
+        /** Stop when the actual and predicted relative decrease of the RSS fall below this; 1e-14. */
+        reduction: positive.default(1e-14),
+        /** Stop when the cosine between residual and every Jacobian column falls below this; 1e-10. */
+        gradient: positive.default(1e-10),
+      })
+      .prefault({}),
+  })
+  // A fixed background is not fitted: say so in the resolved options.
+  .transform((o) => (o.fixed.background !== undefined && o.background ? { ...o, background: false } : o));
+
+/** Options as the user writes them (every field optional). */
+export type FitOptionsInput = z.input<typeof FitOptions>;
+/** Options after defaults: what the numeric code receives and every result records. */
+export type ResolvedFitOptions = z.output<typeof FitOptions>;

@@ -1,0 +1,10 @@
+export * from "./steadyStateModel.ts";
+export { exponentialModel } from "./exponential.ts";
+export { finiteModel } from "./finite.ts";
+export { sourceModel } from "./source.ts";
+export { powerModel } from "./power.ts";
+export { powerFreeModel } from "./powerFree.ts";
+export { modelRegistry } from "./modelRegistry.ts";
+export { diffusionOverDegradation } from "./diffusionOverDegradation.ts";
+export { fallDistance, type FallDistance } from "./fallDistance.ts";
+export { lengthScaleBounds } from "./lengthScaleBounds.ts";

@@ -1,0 +1,23 @@
+import { build } from "esbuild";
+import { copyFileSync, mkdirSync } from "node:fs";
+import { fileURLToPath } from "node:url";
+
+const CLIENT = fileURLToPath(new URL("../../client/", import.meta.url));
+
+/** Bundle the browser client into client/dist (esbuild, a fraction of a second) and return that folder. */
+export async function buildClient(): Promise<string> {
+  const out = CLIENT + "dist/";
+  mkdirSync(out, { recursive: true });
+  await build({
+    entryPoints: [CLIENT + "main.ts"],
+    bundle: true,
+    format: "esm",
+    target: "es2022",
+    outfile: out + "app.js",
+    sourcemap: true,
+    logLevel: "silent",
+  });
+  copyFileSync(CLIENT + "index.html", out + "index.html");
+  copyFileSync(CLIENT + "styles.css", out + "styles.css");
+  return out;
+}

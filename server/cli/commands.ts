@@ -1,0 +1,8 @@
+import type { Command } from "./command.ts";
+import { demoCommand } from "./demoCommand.ts";
+import { importCommand } from "./importCommand.ts";
+import { listCommand } from "./listCommand.ts";
+import { serveCommand } from "./serveCommand.ts";
+
+/** Every sub-command, in the order the help lists them. */
+export const COMMANDS: Command[] = [importCommand, listCommand, demoCommand, serveCommand];

@@ -1,0 +1,6 @@
+/** Plain-text table with columns padded to their widest cell. */
+export function formatTable(header: string[], rows: string[][]): string {
+  const widths = header.map((h, i) => Math.max(h.length, ...rows.map((r) => (r[i] ?? "").length)));
+  const line = (cells: string[]) => cells.map((c, i) => (c ?? "").padEnd(widths[i])).join("  ").trimEnd();
+  return [line(header), widths.map((w) => "─".repeat(w)).join("  "), ...rows.map(line)].join("\n") + "\n";
+}

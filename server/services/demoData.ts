@@ -1,0 +1,20 @@
+import { readFileSync } from "node:fs";
+import { fileURLToPath } from "node:url";
+import type { Db } from "../../db/connection.ts";
+import { countProfiles } from "../../db/profiles.ts";
+import { DEMO_FILES } from "../../fixtures/demoFiles.ts";
+import { ImportOptions } from "../import/importOptions.ts";
+import { importFiles, type ImportReport } from "./importFiles.ts";
+
+const FIXTURES = fileURLToPath(new URL("../../fixtures/", import.meta.url));
+
+/** Load the invented demo data set (main genotypes and the dosage series), reversing the one flipped embryo. */
+export function loadDemoData(db: Db): ImportReport[] {
+  const files = [DEMO_FILES.long, DEMO_FILES.dosage].map((name) => ({ name, bytes: readFileSync(FIXTURES + name) }));
+  return importFiles(db, files, ImportOptions.parse({ flip: "auto" }));
+}
+
+/** True when the database holds no profiles yet. */
+export function isEmpty(db: Db): boolean {
+  return countProfiles(db) === 0;
+}

@@ -1,0 +1,55 @@
+import type { Db } from "../../db/connection.ts";
+import { storeParsedImport } from "../../db/storeImport.ts";
+import type { ResolvedImportOptions } from "../import/importOptions.ts";
+import { parseProfileFile, type SourceFile } from "../import/parseProfileFile.ts";
+import type { ImportWarning, ParsedImport } from "../import/records.ts";
+import { isUserError, type UserIssue } from "../userError.ts";
+
+export type ImportReport =
+  | {
+      file: string;
+      status: "imported" | "already-imported";
+      importId: number;
+      format: string;
+      embryosAdded: number;
+      embryosMatched: number;
+      profilesAdded: number;
+      embryos: string[];
+      warnings: ImportWarning[];
+      message: string;
+    }
+  | { file: string; status: "rejected"; error: { code: string; message: string; issues: UserIssue[] } };
+
+/**
+ * Import each file in its own transaction: a file goes in whole or not at all,
+ * and one rejected file does not stop the others. The same bytes twice add nothing.
+ */
+export function importFiles(db: Db, files: SourceFile[], options: ResolvedImportOptions, meta?: SourceFile): ImportReport[] {
+  return files.map((file) => importOne(db, file, options, meta));
+}
+
+function importOne(db: Db, file: SourceFile, options: ResolvedImportOptions, meta?: SourceFile): ImportReport {
+  let parsed: ParsedImport;
+  try {
+    parsed = parseProfileFile(file, options, meta);
+    const stored = storeParsedImport(db, parsed, { ...options, metaFile: meta?.name ?? null });
+    const again = stored.status === "already-imported";
+    return {
+      file: file.name,
+      status: stored.status,
+      importId: stored.importId,
+      format: parsed.format,
+      embryosAdded: stored.embryosAdded,
+      embryosMatched: stored.embryosMatched,
+      profilesAdded: stored.profilesAdded,
+      embryos: again ? [] : parsed.embryos.map((e) => e.label),
+      warnings: again ? [] : parsed.warnings,
+      message: again
+        ? `already imported${stored.originalFileName !== file.name ? ` as ${stored.originalFileName}` : ""} (import #${stored.importId}); nothing added`
+        : `${stored.profilesAdded} profile${stored.profilesAdded === 1 ? "" : "s"} from ${parsed.embryos.length} embryo${parsed.embryos.length === 1 ? "" : "s"} (${stored.embryosAdded} new)`,
+    };
+  } catch (e) {
+    if (!isUserError(e)) throw e;
+    return { file: file.name, status: "rejected", error: { code: e.code, message: e.message, issues: e.issues } };
+  }
+}
