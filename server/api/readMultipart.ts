@@ -1,0 +1,42 @@
+import busboy from "busboy";
+import type { Request } from "express";
+import type { SourceFile } from "../import/parseProfileFile.ts";
+import { UserError } from "../userError.ts";
+
+export interface MultipartBody {
+  /** Uploaded files by form field name (a field may carry several files). */
+  files: Record<string, SourceFile[]>;
+  fields: Record<string, string>;
+}
+
+/** Read a multipart/form-data upload into memory, refusing any file over `maxFileBytes`. */
+export function readMultipart(req: Request, limits: { maxFileBytes: number; maxFiles: number }): Promise<MultipartBody> {
+  const type = req.headers["content-type"] ?? "";
+  if (!type.startsWith("multipart/form-data")) {
+    return Promise.reject(new UserError("not-multipart", "Send the files as multipart/form-data (a form with file fields).", { status: 415 }));
+  }
+  return new Promise((resolve, reject) => {
+    const out: MultipartBody = { files: {}, fields: {} };
+    let failed: UserError | null = null;
+    const bb = busboy({ headers: req.headers, limits: { fileSize: limits.maxFileBytes, files: limits.maxFiles, fields: 50 } });
+    bb.on("file", (field, stream, info) => {
+      const chunks: Buffer[] = [];
+      stream.on("data", (c: Buffer) => chunks.push(c));
+      stream.on("limit", () => {
+        failed ??= new UserError("file-too-large", `${info.filename}: the file is over the ${limits.maxFileBytes}-byte limit. Nothing was imported.`, { status: 413 });
+      });
+      stream.on("end", () => {
+        (out.files[field] ??= []).push({ name: info.filename || field, bytes: new Uint8Array(Buffer.concat(chunks)) });
+      });
+    });
+    bb.on("field", (name, value) => {
+      out.fields[name] = value;
+    });
+    bb.on("filesLimit", () => {
+      failed ??= new UserError("too-many-files", `At most ${limits.maxFiles} files per upload.`, { status: 413 });
+    });
+    bb.on("error", (e) => reject(new UserError("bad-upload", `The upload could not be read: ${(e as Error).message}`, { status: 400 })));
+    bb.on("close", () => (failed ? reject(failed) : resolve(out)));
+    req.pipe(bb);
+  });
+}

@@ -1,0 +1,7 @@
+import type { RouteDefinition } from "../route.ts";
+import { importRoutes } from "./importRoutes.ts";
+import { jobRoutes } from "./jobRoutes.ts";
+import { profileRoutes } from "./profileRoutes.ts";
+
+/** Every API route, in the order the reference lists them. */
+export const ALL_ROUTES: RouteDefinition[] = [...importRoutes, ...profileRoutes, ...jobRoutes];

@@ -1,0 +1,23 @@
+import type { ComputeTask } from "../jobs/computeTask.ts";
+
+/**
+ * Every computation a job may run in a worker thread, by name. Each is pure:
+ * its input was read from the database on the main thread, and its output is
+ * stored there again.
+ */
+export const COMPUTE_TASKS: Record<string, ComputeTask> = {
+  /** A small self-check used by the job runner's tests: counts to n, reporting progress. */
+  "self-test": async (input, progress) => {
+    const { n, delayMs, fail } = input as { n: number; delayMs: number; fail?: "user" | "internal" };
+    for (let i = 1; i <= n; i++) {
+      await new Promise((r) => setTimeout(r, delayMs));
+      progress(i / n, `step ${i}/${n}`);
+    }
+    if (fail === "internal") throw new Error("deliberate failure");
+    if (fail === "user") {
+      const { UserError } = await import("../userError.ts");
+      throw new UserError("too-few-embryos", "Only 2 embryos; at least 3 are needed.", { status: 422 });
+    }
+    return { counted: n };
+  },
+};
