@@ -11,15 +11,15 @@ const RECORD_FIELDS = new Set(["group", "genotype", "channel", "session", "stage
 
 /**
  * The value of the grouping field `by` for one record: a record field
- * (group, genotype, channel, session, stage, ageS, dosage, …) or, failing
- * that, a `metadata` key. With `windowWidth`, a numeric value is put into a
+ * (group, genotype, channel, session, stage, ageS, dosage, …) or, when the
+ * record has no such field, a `metadata` key. With `windowWidth`, a numeric value is put into a
  * half-open window [k·w, (k+1)·w) — e.g. stage windows of 600 s of age.
  * Returns null when the record has no usable value.
  */
 export function groupKey(record: EmbryoRecord, by: string, windowWidth?: number): GroupKey | null {
-  const raw = RECORD_FIELDS.has(by)
-    ? (record as unknown as Record<string, unknown>)[by]
-    : record.metadata?.[by];
+  // A record field wins; a metadata key of the same name fills in when the field is absent.
+  const field = RECORD_FIELDS.has(by) ? (record as unknown as Record<string, unknown>)[by] : undefined;
+  const raw = field ?? record.metadata?.[by];
   if (raw === undefined || raw === null || raw === "") return null;
   // Metadata often arrives as text; a window needs the number.
   const value = typeof raw === "string" && windowWidth !== undefined && raw.trim() !== "" && Number.isFinite(Number(raw))

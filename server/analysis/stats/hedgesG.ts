@@ -36,9 +36,7 @@ export function hedgesGFromMoments(a: GroupMoments, b: GroupMoments, level = 0.9
   const difference = a.mean - b.mean;
   // Zero spread in both groups: the standardized difference is 0 for equal means, else unbounded.
   const d = pooledSd === 0 ? (difference === 0 ? 0 : Math.sign(difference) * Infinity) : difference / pooledSd;
-  const correction = df > 1
-    ? Math.exp(logGamma(df / 2) - logGamma((df - 1) / 2)) / Math.sqrt(df / 2)
-    : 1 - 3 / (4 * df - 1);
+  const correction = Math.exp(logGamma(df / 2) - logGamma((df - 1) / 2)) / Math.sqrt(df / 2);
   const g = correction * d;
   const seD = Math.sqrt((a.n + b.n) / (a.n * b.n) + (d * d) / (2 * (a.n + b.n)));
   const se = correction * seD;

@@ -61,7 +61,7 @@ export function trackOverTime(records: readonly EmbryoRecord[], options: TrackOp
   const out: ExcludedEmbryo[] = excluded.map(({ embryo, reason }) => ({ embryo, reason }));
   const groups = new Map<string, { key: GroupKey; points: TimePoint[] }>();
   for (const r of used) {
-    const value = r.lambdaUm === undefined ? undefined : metricValue(r, o.metric);
+    const value = metricValue(r, o.metric);
     if (value === undefined || !Number.isFinite(value)) {
       out.push({ embryo: r.embryo, reason: `no ${o.metric} value` });
       continue;

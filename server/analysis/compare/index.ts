@@ -1,0 +1,13 @@
+export type { EmbryoRecord, ExcludedEmbryo } from "./embryoRecord.ts";
+export { EstimateSchema } from "./estimateSchema.ts";
+export { CompareOptions, GroupExtras, type CompareOptionsInput, type ResolvedCompareOptions, type ProgressCallback } from "./compareOptions.ts";
+export { compareGroups, type CompareResult, type Contrast, type SpreadContrast } from "./compareGroups.ts";
+export { summarizeGroup, type GroupSummary, type BoundarySpread } from "./summarizeGroup.ts";
+export { summarizeMetric, type MetricSummary } from "./summarizeMetric.ts";
+export { contrastMeans, type MeanContrast, type IntervalValue } from "./contrastMeans.ts";
+export { boundarySpreadRatio, suppliedSpreadRatio, type SpreadRatio, type SuppliedSpread } from "./spreadRatio.ts";
+export { selectRecords, type RecordSelection } from "./selectRecords.ts";
+export { groupKey, compareGroupKeys, type GroupKey } from "./groupKey.ts";
+export { deriveSeed } from "./deriveSeed.ts";
+export * from "./tracking/index.ts";
+export * from "./planning/index.ts";
