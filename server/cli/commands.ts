@@ -1,8 +1,10 @@
 import type { Command } from "./command.ts";
 import { demoCommand } from "./demoCommand.ts";
+import { fitCommand } from "./fitCommand.ts";
+import { precisionCommand } from "./precisionCommand.ts";
 import { importCommand } from "./importCommand.ts";
 import { listCommand } from "./listCommand.ts";
 import { serveCommand } from "./serveCommand.ts";
 
 /** Every sub-command, in the order the help lists them. */
-export const COMMANDS: Command[] = [importCommand, listCommand, demoCommand, serveCommand];
+export const COMMANDS: Command[] = [importCommand, listCommand, demoCommand, fitCommand, precisionCommand, serveCommand];

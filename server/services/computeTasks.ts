@@ -1,4 +1,6 @@
 import type { ComputeTask } from "../jobs/computeTask.ts";
+import { runFitTask, type FitTaskInput } from "./fits/fitTask.ts";
+import { runPrecisionTask, type PrecisionTaskInput } from "./precision/precisionTask.ts";
 
 /**
  * Every computation a job may run in a worker thread, by name. Each is pure:
@@ -6,6 +8,8 @@ import type { ComputeTask } from "../jobs/computeTask.ts";
  * stored there again.
  */
 export const COMPUTE_TASKS: Record<string, ComputeTask> = {
+  fit: (input, progress) => runFitTask(input as FitTaskInput, progress),
+  precision: (input, progress) => runPrecisionTask(input as PrecisionTaskInput, progress),
   /** A small self-check used by the job runner's tests: counts to n, reporting progress. */
   "self-test": async (input, progress) => {
     const { n, delayMs, fail } = input as { n: number; delayMs: number; fail?: "user" | "internal" };

@@ -78,10 +78,10 @@ export function minimizeProjected(
   }
   let rss = problem.rss;
   captureDerivatives();
-  let maxDiag = 0;
-  for (let k = 0; k < p; k++) maxDiag = Math.max(maxDiag, a[k * p + k]);
-  let mu = 1e-3 * (maxDiag > 0 ? maxDiag : 1);
+  // Dimensionless damping: the step solves (A + μ·diag(A))δ = −g.
+  let mu = 1e-3;
   let nu = 2;
+  let maxDiag = 0;
   let stateAtU = true;
   let reason: StopReason = "max-iterations";
   let iterations = 0;
@@ -134,6 +134,11 @@ export function minimizeProjected(
       let ad = 0;
       for (let j = 0; j < p; j++) ad += a[i * p + j] * step[j];
       predicted -= 2 * g[i] * step[i] + step[i] * ad;
+    }
+    // A step whose predicted gain is below the tolerance cannot be told from rounding in the RSS.
+    if (predicted <= settings.reductionTolerance * rss) {
+      reason = "reduction";
+      break;
     }
     const ok = problem.evaluate(toNatural(trial), true);
     stateAtU = false;

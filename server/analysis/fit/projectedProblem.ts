@@ -56,23 +56,8 @@ export class ProjectedProblem {
     for (const block of this.blocks) {
       if (!block.evaluate(this.model, this.theta, withJacobian ? free : null)) return false;
       rss += block.rss;
-      if (!withJacobian) continue;
-      const r = block.residual;
-      const n = block.n;
-      for (let a = 0; a < p; a++) {
-        const ja = block.projectedJacobian[free[a]];
-        let sr = 0;
-        for (let i = 0; i < n; i++) sr += ja[i] * r[i];
-        jtr[a] += sr;
-        for (let b = a; b < p; b++) {
-          const jb = block.projectedJacobian[free[b]];
-          let s = 0;
-          for (let i = 0; i < n; i++) s += ja[i] * jb[i];
-          jtj[a * p + b] += s;
-        }
-      }
+      if (withJacobian) block.accumulate(free, jtj, jtr);
     }
-    if (withJacobian) for (let a = 0; a < p; a++) for (let b = 0; b < a; b++) jtj[a * p + b] = jtj[b * p + a];
     this.rss = rss;
     return Number.isFinite(rss);
   }

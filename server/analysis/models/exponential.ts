@@ -1,5 +1,7 @@
 import type { SteadyStateModel } from "./steadyStateModel.ts";
 import { diffusionOverDegradation } from "./diffusionOverDegradation.ts";
+import { decayingExponential } from "./decayingExponential.ts";
+import { decayLengthFromIntegrals } from "./decayLengthFromIntegrals.ts";
 import { fallDistance } from "./fallDistance.ts";
 import { lengthScaleBounds } from "./lengthScaleBounds.ts";
 
@@ -18,21 +20,8 @@ export const exponentialModel: SteadyStateModel = {
   amplitudeDescription: "A = j0·λ/D, the intensity above background at the source (x = 0)",
 
   basis(x, theta, _lengthUm, value, derivatives) {
-    const lambdaUm = theta[0];
-    const inv = 1 / lambdaUm;
-    const n = x.length;
-    if (derivatives === null) {
-      for (let i = 0; i < n; i++) value[i] = Math.exp(-x[i] * inv);
-      return;
-    }
-    // ∂/∂λ e^(−x/λ) = (x/λ²) e^(−x/λ)
-    const dLambda = derivatives[0];
-    const inv2 = inv * inv;
-    for (let i = 0; i < n; i++) {
-      const g = Math.exp(-x[i] * inv);
-      value[i] = g;
-      dLambda[i] = x[i] * inv2 * g;
-    }
+    // ∂/∂λ e^(−x/λ) = (x/λ²) e^(−x/λ), filled in the same pass.
+    decayingExponential(x, theta[0], value, derivatives === null ? null : derivatives[0]);
   },
 
   bounds(extent) {
@@ -41,7 +30,9 @@ export const exponentialModel: SteadyStateModel = {
   },
 
   initialGuess(x, y, extent) {
-    // The profile falls to 1/e of its height over one decay length.
+    const fromIntegrals = decayLengthFromIntegrals(x, y, 1);
+    if (fromIntegrals !== null) return [fromIntegrals];
+    // Otherwise: the profile falls to 1/e of its height over about one decay length.
     const fall = fallDistance(x, y, Math.exp(-1));
     return [fall ? fall.distanceUm : (extent.xMaxUm - extent.xMinUm) / 3];
   },

@@ -1,5 +1,6 @@
 import type { SteadyStateModel } from "./steadyStateModel.ts";
 import { diffusionOverDegradation } from "./diffusionOverDegradation.ts";
+import { decayLengthFromIntegrals } from "./decayLengthFromIntegrals.ts";
 import { fallDistance } from "./fallDistance.ts";
 import { lengthScaleBounds } from "./lengthScaleBounds.ts";
 
@@ -56,6 +57,9 @@ export const finiteModel: SteadyStateModel = {
   },
 
   initialGuess(x, y, extent) {
+    const fromIntegrals = decayLengthFromIntegrals(x, y, 2);
+    if (fromIntegrals !== null) return [fromIntegrals];
+    // Otherwise: the profile falls to 1/e of its height over about one decay length.
     const fall = fallDistance(x, y, Math.exp(-1));
     return [fall ? fall.distanceUm : (extent.xMaxUm - extent.xMinUm) / 3];
   },

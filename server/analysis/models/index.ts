@@ -8,3 +8,5 @@ export { modelRegistry } from "./modelRegistry.ts";
 export { diffusionOverDegradation } from "./diffusionOverDegradation.ts";
 export { fallDistance, type FallDistance } from "./fallDistance.ts";
 export { lengthScaleBounds } from "./lengthScaleBounds.ts";
+export { decayLengthFromIntegrals } from "./decayLengthFromIntegrals.ts";
+export { decayingExponential } from "./decayingExponential.ts";

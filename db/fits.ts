@@ -1,0 +1,171 @@
+import type { Db } from "./connection.ts";
+import { canonicalJson, stableHash } from "./stableHash.ts";
+
+export interface FitToStore {
+  profileId: number;
+  model: string;
+  /** The resolved fit options (after defaults): their hash identifies the fit. */
+  options: unknown;
+  engineVersion: string;
+  status: string;
+  lambdaUm: number | null;
+  lambdaSeUm: number | null;
+  aicc: number | null;
+  result: unknown;
+}
+
+export interface StoredFit {
+  id: number;
+  profileId: number;
+  model: string;
+  optionsHash: string;
+  options: unknown;
+  engineVersion: string;
+  status: string;
+  lambdaUm: number | null;
+  lambdaSeUm: number | null;
+  aicc: number | null;
+  result: unknown;
+  createdAt: string;
+}
+
+/**
+ * Store fits in one transaction. The same profile, model and options replace
+ * the earlier fit; other options add a new one, so every stored number keeps
+ * the settings that produced it.
+ */
+export function storeFits(db: Db, fits: FitToStore[], now: () => Date = () => new Date()): number[] {
+  const upsert = db.prepare(
+    `INSERT INTO fits (profile_id, model, options_hash, options_json, engine_version, status, lambda_um, lambda_se_um, aicc, result_json, created_at)
+     VALUES (@profileId, @model, @optionsHash, @options, @engineVersion, @status, @lambdaUm, @lambdaSeUm, @aicc, @result, @createdAt)
+     ON CONFLICT (profile_id, model, options_hash) DO UPDATE SET
+       options_json = excluded.options_json, engine_version = excluded.engine_version, status = excluded.status,
+       lambda_um = excluded.lambda_um, lambda_se_um = excluded.lambda_se_um, aicc = excluded.aicc,
+       result_json = excluded.result_json, created_at = excluded.created_at
+     RETURNING id`,
+  );
+  return db.transaction(() =>
+    fits.map(
+      (f) =>
+        (
+          upsert.get({
+            ...f,
+            optionsHash: stableHash(f.options),
+            options: canonicalJson(f.options),
+            result: JSON.stringify(f.result),
+            createdAt: now().toISOString(),
+          }) as { id: number }
+        ).id,
+    ),
+  )();
+}
+
+export interface FitFilter {
+  profileIds?: number[];
+  model?: string;
+  optionsHash?: string;
+  ids?: number[];
+}
+
+function toStored(r: Record<string, unknown>): StoredFit {
+  return {
+    id: r.id as number,
+    profileId: r.profile_id as number,
+    model: r.model as string,
+    optionsHash: r.options_hash as string,
+    options: JSON.parse(r.options_json as string),
+    engineVersion: r.engine_version as string,
+    status: r.status as string,
+    lambdaUm: r.lambda_um as number | null,
+    lambdaSeUm: r.lambda_se_um as number | null,
+    aicc: r.aicc as number | null,
+    result: JSON.parse(r.result_json as string),
+    createdAt: r.created_at as string,
+  };
+}
+
+export function listFits(db: Db, filter: FitFilter = {}): StoredFit[] {
+  const conds: string[] = [];
+  const params: unknown[] = [];
+  if (filter.profileIds) {
+    conds.push(`profile_id IN (${filter.profileIds.map(() => "?").join(",") || "NULL"})`);
+    params.push(...filter.profileIds);
+  }
+  if (filter.ids) {
+    conds.push(`id IN (${filter.ids.map(() => "?").join(",") || "NULL"})`);
+    params.push(...filter.ids);
+  }
+  if (filter.model !== undefined) { conds.push("model = ?"); params.push(filter.model); }
+  if (filter.optionsHash !== undefined) { conds.push("options_hash = ?"); params.push(filter.optionsHash); }
+  const where = conds.length ? `WHERE ${conds.join(" AND ")}` : "";
+  return (db.prepare(`SELECT * FROM fits ${where} ORDER BY profile_id, model, created_at DESC`).all(...params) as Record<string, unknown>[]).map(toStored);
+}
+
+export { stableHash as fitOptionsHash };
+
+export interface FitListFilter {
+  genotype?: string;
+  channel?: string;
+  model?: string;
+  profileId?: number;
+  /** Only the newest fit of each profile and model (default true). */
+  latestOnly?: boolean;
+}
+
+export interface FitListItem {
+  fitId: number;
+  profileId: number;
+  embryo: string;
+  genotype: string;
+  channel: string;
+  timeS: number | null;
+  model: string;
+  status: string;
+  message: string;
+  lambdaUm: { value: number; se: number | null; ci95: [number, number] | null } | null;
+  aicc: number | null;
+  window: { xMinUm?: number; xMaxUm?: number } | null;
+  createdAt: string;
+}
+
+/** Fits with their embryo's labels, without the bulky arrays; newest first within each profile and model. */
+export function listFitItems(db: Db, filter: FitListFilter = {}): FitListItem[] {
+  const conds: string[] = [];
+  const params: unknown[] = [];
+  if (filter.genotype !== undefined) { conds.push("e.genotype = ?"); params.push(filter.genotype); }
+  if (filter.channel !== undefined) { conds.push("p.channel = ?"); params.push(filter.channel); }
+  if (filter.model !== undefined) { conds.push("f.model = ?"); params.push(filter.model); }
+  if (filter.profileId !== undefined) { conds.push("f.profile_id = ?"); params.push(filter.profileId); }
+  if (filter.latestOnly ?? true) {
+    conds.push("f.id = (SELECT f2.id FROM fits f2 WHERE f2.profile_id = f.profile_id AND f2.model = f.model ORDER BY f2.created_at DESC, f2.id DESC LIMIT 1)");
+  }
+  const rows = db
+    .prepare(
+      `SELECT f.id, f.profile_id, e.label, e.genotype, p.channel, p.time_s, f.model, f.status, f.aicc, f.created_at,
+              json_extract(f.result_json, '$.fit.message') AS message,
+              json_extract(f.result_json, '$.fit.parameters.lambdaUm') AS lambda,
+              json_extract(f.options_json, '$.window') AS window
+       FROM fits f JOIN profiles p ON p.id = f.profile_id JOIN embryos e ON e.id = p.embryo_id
+       ${conds.length ? `WHERE ${conds.join(" AND ")}` : ""}
+       ORDER BY e.genotype, e.label, p.channel, f.model`,
+    )
+    .all(...params) as Record<string, unknown>[];
+  return rows.map((r) => {
+    const lambda = r.lambda ? (JSON.parse(r.lambda as string) as { value: number; se: number | null; ci95: [number, number] | null }) : null;
+    return {
+      fitId: r.id as number,
+      profileId: r.profile_id as number,
+      embryo: r.label as string,
+      genotype: r.genotype as string,
+      channel: r.channel as string,
+      timeS: r.time_s as number | null,
+      model: r.model as string,
+      status: r.status as string,
+      message: (r.message as string | null) ?? "",
+      lambdaUm: lambda ? { value: lambda.value, se: lambda.se, ci95: lambda.ci95 } : null,
+      aicc: r.aicc as number | null,
+      window: r.window ? JSON.parse(r.window as string) : null,
+      createdAt: r.created_at as string,
+    };
+  });
+}

@@ -1,0 +1,189 @@
+import type { ResolvedFitOptions } from "./fitOptions.ts";
+import type { ProjectedProblem } from "./projectedProblem.ts";
+import { bracketedStart } from "./bracketedStart.ts";
+import { minimizeProjected, type ProjectedMinimum, type ProjectedMinimizerSettings } from "./minimizeProjected.ts";
+import { defaultRobustScale, robustWeight } from "./robustWeight.ts";
+
+export interface SeparableSolution {
+  /** Free nonlinear parameters (natural units). */
+  values: Float64Array;
+  rss: number;
+  /** Levenberg–Marquardt iterations, summed over restarts and reweightings. */
+  iterations: number;
+  /** The last minimisation stopped on a convergence test. */
+  converged: boolean;
+  /** False when every start was degenerate (the basis could not be evaluated). */
+  evaluable: boolean;
+  atBound: Int8Array;
+  /** The bracketing search was needed. */
+  usedFallback: boolean;
+  /** Rounds of reweighting (robust loss or Poisson weights); 0 without. */
+  reweightings: number;
+  /** The reweighting reached a fixed point (true when there was none to do). */
+  reweightingConverged: boolean;
+  /** Scale of the robust loss in standardised residual units, or null without one. */
+  robustScale: number | null;
+}
+
+/**
+ * Solve the separable fit held by `problem`: Levenberg–Marquardt from the
+ * data-driven start, falling back to the bracketing search when that fails
+ * or ends on a bound; then, for a robust loss or Poisson weights, reweight
+ * and re-solve until the weights stop changing (iteratively reweighted least
+ * squares). `baseWeights[b]` holds block b's inverse-variance weights, or
+ * null for unit weights. On return every block holds the final state.
+ */
+export function solveSeparable(
+  problem: ProjectedProblem,
+  start: ArrayLike<number>,
+  lower: ArrayLike<number>,
+  upper: ArrayLike<number>,
+  options: ResolvedFitOptions,
+  baseWeights: readonly (Float64Array | null)[],
+): SeparableSolution {
+  const settings: ProjectedMinimizerSettings = {
+    maxIterations: options.maxIterations,
+    stepTolerance: options.tolerance.step,
+    reductionTolerance: options.tolerance.reduction,
+    gradientTolerance: options.tolerance.gradient,
+  };
+  const blocks = problem.blocks;
+  const poisson = options.weights === "poisson";
+  const loss = options.robust.loss;
+  const reweighting = poisson || loss !== "none";
+  const offset = options.fixed.background ?? 0;
+  // Poisson variance ∝ the intensity including any fixed background; floor it
+  // at 1e-3 of the largest intensity so near-zero values do not dominate.
+  const floors = reweighting
+    ? blocks.map((b) => {
+        let m = 0;
+        for (let i = 0; i < b.n; i++) m = Math.max(m, Math.abs(b.y[i] + offset));
+        return Math.max(1e-3 * m, 1e-300);
+      })
+    : [];
+  const poissonFactor = reweighting ? blocks.map((b) => new Float64Array(b.n).fill(1)) : [];
+  const work = reweighting ? blocks.map((b) => new Float64Array(b.n)) : [];
+
+  blocks.forEach((b, k) => {
+    const base = baseWeights[k];
+    if (!reweighting) {
+      if (base) b.setWeights(base);
+      return;
+    }
+    if (poisson) for (let i = 0; i < b.n; i++) poissonFactor[k][i] = 1 / Math.max(b.y[i] + offset, floors[k]);
+    for (let i = 0; i < b.n; i++) work[k][i] = (base ? base[i] : 1) * poissonFactor[k][i];
+    b.setWeights(work[k]);
+  });
+
+  let iterations = 0;
+  let usedFallback = false;
+  const solveOnce = (from: ArrayLike<number>, allowFallback: boolean): ProjectedMinimum => {
+    const first = minimizeProjected(problem, from, lower, upper, settings);
+    iterations += first.iterations;
+    const needsFallback =
+      first.reason === "degenerate" || !first.converged || (first.atBound.length > 0 && first.atBound[0] !== 0);
+    if (!allowFallback || !needsFallback || problem.free.length === 0) return first;
+    usedFallback = true;
+    const second = minimizeProjected(problem, bracketedStart(problem, from, lower, upper), lower, upper, settings);
+    iterations += second.iterations;
+    const firstUsable = first.reason !== "degenerate" && Number.isFinite(first.rss);
+    const secondUsable = second.reason !== "degenerate" && Number.isFinite(second.rss);
+    if (secondUsable && (!firstUsable || second.rss <= first.rss || (second.converged && !first.converged))) return second;
+    problem.evaluate(first.values, true);
+    return first;
+  };
+
+  let result = solveOnce(start, true);
+  const evaluable = result.reason !== "degenerate";
+  if (!evaluable || !reweighting) {
+    return {
+      values: result.values,
+      rss: result.rss,
+      iterations,
+      converged: result.converged,
+      evaluable,
+      atBound: result.atBound,
+      usedFallback,
+      reweightings: 0,
+      reweightingConverged: true,
+      robustScale: null,
+    };
+  }
+
+  // Residuals standardised by the non-robust weights set the robust scale.
+  let robustScale: number | null = null;
+  if (loss !== "none") {
+    if (options.robust.scale !== undefined) robustScale = options.robust.scale;
+    else {
+      const all: number[] = [];
+      for (const b of blocks) for (let i = 0; i < b.n; i++) all.push(b.residual[i]);
+      robustScale = defaultRobustScale(all);
+    }
+  }
+
+  let previous = snapshot(problem, result.values);
+  let reweightings = 0;
+  let reweightingConverged = false;
+  while (reweightings < options.maxReweightings) {
+    reweightings++;
+    blocks.forEach((b, k) => {
+      const base = baseWeights[k];
+      const mu = b.fittedValues(work[k]);
+      for (let i = 0; i < b.n; i++) {
+        if (poisson) poissonFactor[k][i] = 1 / Math.max(mu[i] + offset, floors[k]);
+        const w0 = (base ? base[i] : 1) * poissonFactor[k][i];
+        const standardised = Math.sqrt(w0) * (b.y[i] - mu[i]);
+        work[k][i] = w0 * (robustScale === null ? 1 : robustWeight(loss, standardised, robustScale));
+      }
+      b.setWeights(work[k]);
+    });
+    result = solveOnce(result.values, false);
+    if (result.reason === "degenerate") break;
+    const current = snapshot(problem, result.values);
+    const change = relativeChange(previous, current, blocks.length);
+    previous = current;
+    if (change <= Math.max(options.tolerance.step, 1e-12)) {
+      reweightingConverged = true;
+      break;
+    }
+  }
+  return {
+    values: result.values,
+    rss: result.rss,
+    iterations,
+    converged: result.converged,
+    evaluable: result.reason !== "degenerate",
+    atBound: result.atBound,
+    usedFallback,
+    reweightings,
+    reweightingConverged,
+    robustScale,
+  };
+}
+
+/** Nonlinear values followed by each block's amplitude and background. */
+function snapshot(problem: ProjectedProblem, values: Float64Array): Float64Array {
+  const out = new Float64Array(values.length + 2 * problem.blocks.length);
+  out.set(values);
+  problem.blocks.forEach((b, k) => {
+    out[values.length + 2 * k] = b.amplitude;
+    out[values.length + 2 * k + 1] = b.background;
+  });
+  return out;
+}
+
+/**
+ * Largest relative change between snapshots: nonlinear parameters relative
+ * to themselves, amplitude and background relative to the amplitude's size.
+ */
+function relativeChange(a: Float64Array, b: Float64Array, blockCount: number): number {
+  const p = a.length - 2 * blockCount;
+  let change = 0;
+  for (let k = 0; k < p; k++) change = Math.max(change, Math.abs(b[k] - a[k]) / Math.abs(b[k]));
+  for (let k = 0; k < blockCount; k++) {
+    const scale = Math.abs(b[p + 2 * k]) + Math.abs(b[p + 2 * k + 1]) || 1;
+    change = Math.max(change, Math.abs(b[p + 2 * k] - a[p + 2 * k]) / scale);
+    change = Math.max(change, Math.abs(b[p + 2 * k + 1] - a[p + 2 * k + 1]) / scale);
+  }
+  return change;
+}

@@ -1,0 +1,76 @@
+import { z } from "zod";
+import { getAnalysis, listAnalyses } from "../../../db/analyses.ts";
+import { listFitItems, listFits } from "../../../db/fits.ts";
+import { loadProfiles } from "../../../db/profiles.ts";
+import { steadyStateCaveat } from "../../analysis/derived.ts";
+import { FitRequest } from "../../services/fits/fitRequest.ts";
+import { prepareFitInput, storeFitOutput } from "../../services/fits/fitService.ts";
+import type { FitTaskOutput } from "../../services/fits/fitTask.ts";
+import { UserError } from "../../userError.ts";
+import { defineRoute, IdParams } from "../route.ts";
+
+export const fitRoutes = [
+  defineRoute({
+    method: "post",
+    path: "/api/fits",
+    tag: "fits",
+    summary: "Start fitting the selected profiles (a background job; poll /api/jobs/{id})",
+    description: `The job's result lists every fit with λ ± SE and its 95% CI, and the global fits when asked. ${steadyStateCaveat}`,
+    body: FitRequest,
+    status: 202,
+    handler({ db, jobs, body }) {
+      const input = prepareFitInput(db, body);
+      return jobs.submit("fit", input, (output) => storeFitOutput(db, input, output as FitTaskOutput));
+    },
+  }),
+  defineRoute({
+    method: "get",
+    path: "/api/fits",
+    tag: "fits",
+    summary: "Stored fits (newest per profile and model), with λ and its CI",
+    query: z.object({
+      genotype: z.string().optional(),
+      channel: z.string().optional(),
+      model: z.string().optional(),
+      profileId: z.coerce.number().int().positive().optional(),
+    }),
+    handler: ({ db, query }) => ({ fits: listFitItems(db, query), caveat: steadyStateCaveat }),
+  }),
+  defineRoute({
+    method: "get",
+    path: "/api/fits/:id",
+    tag: "fits",
+    summary: "One stored fit in full: options, parameters with SE and CI, correlations, residuals, and the profile it was fitted to",
+    params: IdParams,
+    handler({ db, params }) {
+      const [fit] = listFits(db, { ids: [params.id] });
+      if (!fit) throw new UserError("unknown-fit", `No fit with id ${params.id}.`, { status: 404 });
+      const [profile] = loadProfiles(db, { profileIds: [fit.profileId] });
+      return {
+        ...fit,
+        profile: profile ? { ...profile, positionsUm: Array.from(profile.positionsUm), positionsRaw: Array.from(profile.positionsRaw), intensities: Array.from(profile.intensities) } : null,
+        caveat: steadyStateCaveat,
+      };
+    },
+  }),
+  defineRoute({
+    method: "get",
+    path: "/api/analyses",
+    tag: "analyses",
+    summary: "Stored group analyses (global fits, precision, comparisons, tracking, plans) with their settings",
+    query: z.object({ kind: z.enum(["global-fit", "precision", "comparison", "tracking", "plan"]).optional() }),
+    handler: ({ db, query }) => ({ analyses: listAnalyses(db, query.kind) }),
+  }),
+  defineRoute({
+    method: "get",
+    path: "/api/analyses/:id",
+    tag: "analyses",
+    summary: "One stored analysis: selection, settings, engine version, input profiles and result",
+    params: IdParams,
+    handler({ db, params }) {
+      const a = getAnalysis(db, params.id);
+      if (!a) throw new UserError("unknown-analysis", `No analysis with id ${params.id}.`, { status: 404 });
+      return a;
+    },
+  }),
+];

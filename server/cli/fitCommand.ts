@@ -1,0 +1,119 @@
+import { runFitTask } from "../services/fits/fitTask.ts";
+import { FitRequest } from "../services/fits/fitRequest.ts";
+import { prepareFitInput, storeFitOutput } from "../services/fits/fitService.ts";
+import { UserError } from "../userError.ts";
+import { numberOption, rangeOption, valueWithErrorOption } from "./cliNumbers.ts";
+import { COMMON_HELP, COMMON_OPTIONS, type Command } from "./command.ts";
+import { formatEstimate } from "./formatEstimate.ts";
+import { formatTable } from "./formatTable.ts";
+import { openCliDatabase } from "./openCliDatabase.ts";
+import { progressReporter } from "./progressReporter.ts";
+import { zodToUserError } from "./zodToUserError.ts";
+
+export const fitCommand: Command = {
+  name: "fit",
+  summary: "fit SDD steady-state models to stored profiles (decay length λ with its CI)",
+  help: `Usage: morphogauge fit [--genotype G] [--channel C] [--model M] [--window A:B] [--global] [--diffusion D±SE] [options]
+
+Fits each selected profile and stores the fit with its options. Refitting with
+the same options replaces the earlier fit; other options add a new one.
+
+  --genotype G          only this genotype
+  --channel C           only this channel
+  --embryo E            only this embryo
+  --model M             exponential | finite | source | power | power-free | all
+                        (default exponential; several comma-separated; "all" ranks them by AICc)
+  --window A:B          fit only positions A ≤ x ≤ B µm (A: or :B leave one end open),
+                        e.g. 30: to leave out a source region
+  --no-background       fit without an additive background
+  --source-width UM     hold the source width of the "source" model at this value
+  --weights W           none | poisson (default none)
+  --robust L            none | soft-l1 | huber (default none): down-weight outlying points
+  --global              also fit each genotype × channel group with one shared λ
+  --diffusion D±SE      a D measured elsewhere (e.g. FRAP), in µm²/s, e.g. 0.8±0.1: adds
+                        k, half-life, source flux and local accumulation time
+  --tau-at X,Y          positions (µm) for the local accumulation time (with --diffusion)
+
+A single steady-state profile determines λ = √(D/k) only; D and k separately
+need a second measurement (see README, "Reading the results").
+${COMMON_HELP}`,
+  options: {
+    ...COMMON_OPTIONS,
+    genotype: { type: "string" },
+    channel: { type: "string" },
+    embryo: { type: "string" },
+    model: { type: "string" },
+    window: { type: "string" },
+    "no-background": { type: "boolean", default: false },
+    "source-width": { type: "string" },
+    weights: { type: "string" },
+    robust: { type: "string" },
+    global: { type: "boolean", default: false },
+    diffusion: { type: "string" },
+    "tau-at": { type: "string" },
+  },
+  async run(values, _positionals, io) {
+    const window = rangeOption("window", values.window as string | undefined);
+    const sourceWidth = numberOption("source-width", values["source-width"] as string | undefined);
+    const diffusion = valueWithErrorOption("diffusion", values.diffusion as string | undefined);
+    const tauAt = ((values["tau-at"] as string | undefined) ?? "")
+      .split(",")
+      .filter((s) => s.trim() !== "")
+      .map((s) => numberOption("tau-at", s)!);
+    if (tauAt.length > 0 && !diffusion) throw new UserError("bad-option", "--tau-at needs --diffusion: the accumulation time depends on D");
+    const parsed = FitRequest.safeParse({
+      selection: { genotype: values.genotype, channel: values.channel, embryo: values.embryo },
+      models: ((values.model as string | undefined) ?? "exponential").split(",").map((m) => m.trim()),
+      options: {
+        ...(window ? { window: { xMinUm: window.min, xMaxUm: window.max } } : {}),
+        ...(values["no-background"] ? { background: false } : {}),
+        ...(sourceWidth !== undefined ? { fixed: { sourceWidthUm: sourceWidth } } : {}),
+        ...(values.weights ? { weights: values.weights } : {}),
+        ...(values.robust ? { robust: { loss: values.robust } } : {}),
+      },
+      global: values.global,
+      diffusion: diffusion ? { valueUm2PerS: diffusion.value, seUm2PerS: diffusion.se } : undefined,
+      accumulationPositionsUm: tauAt,
+    });
+    if (!parsed.success) throw zodToUserError(parsed.error, { models: "model" });
+    const { db } = await openCliDatabase(values.db as string | undefined, io);
+    try {
+      const input = prepareFitInput(db, parsed.data);
+      const progress = progressReporter(io, "fitting");
+      const output = runFitTask(input, progress.update);
+      progress.done();
+      const result = storeFitOutput(db, input, output);
+      if (values.json) {
+        io.stdout(JSON.stringify(result, null, 2) + "\n");
+        return 0;
+      }
+      io.stdout(
+        formatTable(
+          ["embryo", "genotype", "channel", "model", "λ (µm) ± SE [95% CI]", "AICc weight", "status"],
+          result.fits.map((f) => [
+            f.embryo,
+            f.genotype,
+            f.channel,
+            f.model,
+            f.lambda_um ? formatEstimate(f.lambda_um) : f.parameters.x0Um ? `x0 ${formatEstimate(f.parameters.x0Um)}` : "—",
+            f.akaike_weight === null ? "" : f.akaike_weight.toFixed(2),
+            f.status === "converged" ? "ok" : `${f.status}: ${f.message}`,
+          ]),
+        ),
+      );
+      for (const g of result.global) {
+        const pe = g.per_embryo;
+        io.stdout(
+          `\nglobal ${g.model} fit, ${g.genotype} / ${g.channel} (${g.n_embryos} embryos): λ = ${formatEstimate(g.lambda_um, "µm")}` +
+            (pe.mean_um !== null ? `; per-embryo λ mean ${pe.mean_um.toFixed(1)} µm, SD ${pe.sd_um?.toFixed(1) ?? "—"} µm, median ${pe.median_um?.toFixed(1)} µm` : "") +
+            "\n",
+        );
+      }
+      const failed = result.fits.filter((f) => f.status !== "converged").length;
+      io.stdout(`\n${result.fits.length} fits stored${failed ? `, ${failed} not converged (see status)` : ""}.\nNote: ${result.caveat}\n`);
+      return 0;
+    } finally {
+      db.close();
+    }
+  },
+};

@@ -1,0 +1,102 @@
+import { fitGlobal, type GlobalFitResult } from "../../analysis/fit/fitGlobal.ts";
+import { fitProfile, type FitResult } from "../../analysis/fit/fitProfile.ts";
+import type { ResolvedFitOptions } from "../../analysis/fit/fitOptions.ts";
+import { akaikeWeights, type AkaikeComparison } from "../../analysis/fit/akaikeWeights.ts";
+import { summarizeDecayLengths, type DecayLengthSummary } from "../../analysis/fit/summarizeDecayLengths.ts";
+import type { ModelName } from "../../analysis/models/steadyStateModel.ts";
+import { interpretFit, type DiffusionMeasurement, type FitInterpretation } from "../../analysis/derived.ts";
+import type { ProgressCallback } from "../../jobs/jobTypes.ts";
+
+export interface FitTaskProfile {
+  profileId: number;
+  embryo: string;
+  genotype: string;
+  channel: string;
+  timeS: number | null;
+  x: Float64Array;
+  y: Float64Array;
+  lengthUm: number | null;
+}
+
+export interface FitTaskInput {
+  profiles: FitTaskProfile[];
+  models: ModelName[];
+  options: Record<string, ResolvedFitOptions>;
+  global: boolean;
+  diffusion: DiffusionMeasurement | null;
+  accumulationPositionsUm: number[];
+}
+
+export interface ProfileFitOutput {
+  profileId: number;
+  model: ModelName;
+  fit: FitResult;
+  interpretation: FitInterpretation | null;
+}
+
+export interface GlobalFitOutput {
+  genotype: string;
+  channel: string;
+  model: ModelName;
+  profileIds: number[];
+  fit: GlobalFitResult;
+  /** Per-embryo λ next to the global λ. */
+  summary: DecayLengthSummary;
+}
+
+export interface FitTaskOutput {
+  fits: ProfileFitOutput[];
+  /** Per profile, the models ranked by AICc (only when more than one model was fitted). */
+  comparisons: { profileId: number; comparison: AkaikeComparison }[];
+  globals: GlobalFitOutput[];
+  /** Per group, the models ranked by the global fits' AICc. */
+  groupComparisons: { genotype: string; channel: string; comparison: AkaikeComparison }[];
+}
+
+/**
+ * Fit every selected profile with every requested model, and optionally each
+ * genotype × channel group globally. Pure: runs in a worker thread or in-process.
+ */
+export function runFitTask(input: FitTaskInput, progress: ProgressCallback = () => {}): FitTaskOutput {
+  const fits: ProfileFitOutput[] = [];
+  const comparisons: FitTaskOutput["comparisons"] = [];
+  const total = input.profiles.length * input.models.length + (input.global ? input.models.length : 0);
+  let done = 0;
+  for (const p of input.profiles) {
+    const candidates: { model: string; aicc: number }[] = [];
+    for (const model of input.models) {
+      const fit = fitProfile(p.x, p.y, input.options[model], { lengthUm: p.lengthUm ?? undefined });
+      const interpretation = fit.ok ? interpretFit(fit, input.diffusion, input.accumulationPositionsUm) : null;
+      fits.push({ profileId: p.profileId, model, fit, interpretation });
+      if (fit.ok && fit.aicc !== null) candidates.push({ model, aicc: fit.aicc });
+      done++;
+    }
+    if (input.models.length > 1 && candidates.length > 0) comparisons.push({ profileId: p.profileId, comparison: akaikeWeights(candidates) });
+    progress(done / Math.max(total, 1), `fitted ${done} of ${total}`);
+  }
+  const globals: GlobalFitOutput[] = [];
+  const groupComparisons: FitTaskOutput["groupComparisons"] = [];
+  if (input.global) {
+    const groups = new Map<string, FitTaskProfile[]>();
+    for (const p of input.profiles) {
+      const key = JSON.stringify([p.genotype, p.channel]);
+      groups.set(key, [...(groups.get(key) ?? []), p]);
+    }
+    for (const [key, members] of groups) {
+      const [genotype, channel] = JSON.parse(key) as [string, string];
+      const replicates = members.map((m) => ({ x: m.x, y: m.y, lengthUm: m.lengthUm ?? undefined }));
+      const candidates: { model: string; aicc: number }[] = [];
+      for (const model of input.models) {
+        const fit = fitGlobal(replicates, input.options[model]);
+        if (fit.ok && fit.aicc !== null) candidates.push({ model, aicc: fit.aicc });
+        const own = fits.filter((f) => f.model === model && members.some((m) => m.profileId === f.profileId)).map((f) => f.fit);
+        const parameter = model === "power" || model === "power-free" ? "x0Um" : "lambdaUm";
+        globals.push({ genotype, channel, model, profileIds: members.map((m) => m.profileId), fit, summary: summarizeDecayLengths(own, fit, parameter) });
+        done++;
+        progress(done / total, `global fit ${genotype}/${channel} (${model})`);
+      }
+      if (input.models.length > 1) groupComparisons.push({ genotype, channel, comparison: akaikeWeights(candidates) });
+    }
+  }
+  return { fits, comparisons, globals, groupComparisons };
+}
