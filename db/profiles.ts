@@ -4,6 +4,8 @@ import { fromBlob } from "./floatBlob.ts";
 /** Which profiles to read; every field optional, combined with AND. */
 export interface ProfileFilter {
   genotype?: string;
+  /** Any of these genotypes. */
+  genotypes?: string[];
   channel?: string;
   embryo?: string;
   importId?: number;
@@ -50,6 +52,10 @@ function whereClause(f: ProfileFilter): { sql: string; params: unknown[] } {
   const conds: string[] = [];
   const params: unknown[] = [];
   if (f.genotype !== undefined) { conds.push("e.genotype = ?"); params.push(f.genotype); }
+  if (f.genotypes !== undefined) {
+    conds.push(`e.genotype IN (${f.genotypes.map(() => "?").join(",") || "NULL"})`);
+    params.push(...f.genotypes);
+  }
   if (f.channel !== undefined) { conds.push("p.channel = ?"); params.push(f.channel); }
   if (f.embryo !== undefined) { conds.push("e.label = ?"); params.push(f.embryo); }
   if (f.importId !== undefined) { conds.push("p.import_id = ?"); params.push(f.importId); }

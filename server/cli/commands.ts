@@ -2,9 +2,12 @@ import type { Command } from "./command.ts";
 import { demoCommand } from "./demoCommand.ts";
 import { fitCommand } from "./fitCommand.ts";
 import { precisionCommand } from "./precisionCommand.ts";
+import { compareCommand } from "./compareCommand.ts";
+import { trackCommand } from "./trackCommand.ts";
+import { planCommand } from "./planCommand.ts";
 import { importCommand } from "./importCommand.ts";
 import { listCommand } from "./listCommand.ts";
 import { serveCommand } from "./serveCommand.ts";
 
 /** Every sub-command, in the order the help lists them. */
-export const COMMANDS: Command[] = [importCommand, listCommand, demoCommand, fitCommand, precisionCommand, serveCommand];
+export const COMMANDS: Command[] = [importCommand, listCommand, demoCommand, fitCommand, precisionCommand, compareCommand, trackCommand, planCommand, serveCommand];

@@ -9,6 +9,7 @@ import { formatTable } from "./formatTable.ts";
 import { openCliDatabase } from "./openCliDatabase.ts";
 import { progressReporter } from "./progressReporter.ts";
 import { zodToUserError } from "./zodToUserError.ts";
+import { genotypeSelection } from "./groupOptions.ts";
 
 export const fitCommand: Command = {
   name: "fit",
@@ -18,7 +19,7 @@ export const fitCommand: Command = {
 Fits each selected profile and stores the fit with its options. Refitting with
 the same options replaces the earlier fit; other options add a new one.
 
-  --genotype G          only this genotype
+  --genotype G[,G2…]    only these genotypes
   --channel C           only this channel
   --embryo E            only this embryo
   --model M             exponential | finite | source | power | power-free | all
@@ -62,7 +63,7 @@ ${COMMON_HELP}`,
       .map((s) => numberOption("tau-at", s)!);
     if (tauAt.length > 0 && !diffusion) throw new UserError("bad-option", "--tau-at needs --diffusion: the accumulation time depends on D");
     const parsed = FitRequest.safeParse({
-      selection: { genotype: values.genotype, channel: values.channel, embryo: values.embryo },
+      selection: { ...genotypeSelection(values.genotype as string | undefined), channel: values.channel, embryo: values.embryo },
       models: ((values.model as string | undefined) ?? "exponential").split(",").map((m) => m.trim()),
       options: {
         ...(window ? { window: { xMinUm: window.min, xMaxUm: window.max } } : {}),

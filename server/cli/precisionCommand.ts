@@ -8,6 +8,7 @@ import { significant } from "./formatEstimate.ts";
 import { openCliDatabase } from "./openCliDatabase.ts";
 import { progressReporter } from "./progressReporter.ts";
 import { zodToUserError } from "./zodToUserError.ts";
+import { genotypeSelection } from "./groupOptions.ts";
 
 export const precisionCommand: Command = {
   name: "precision",
@@ -18,7 +19,7 @@ Analyses each genotype (or the one chosen) as a group of replicate embryos.
 σ_x(x) = σ_c(x) / |dc̄/dx|: the spread of intensity across embryos divided by
 the slope of the mean profile, with a bootstrap band over embryos.
 
-  --genotype G          only this group (default: every genotype, one result each)
+  --genotype G[,G2…]    only these groups (default: every genotype, one result each)
   --channel C[,C2]      channel, or several measured in the same embryos for the joint σ_x
   --coords C            absolute (µm, default) | relative (fraction x/L of each embryo's length)
   --normalize M         none (default) | minmax | scale-offset (fits each embryo's scale and
@@ -56,7 +57,7 @@ With --json: one object for one group, or {"results": [...]} for several.`,
     const region = rangeOption("region", values.region as string | undefined);
     if (region && (region.min === undefined || region.max === undefined)) throw new UserError("bad-option", "--region needs both ends, e.g. 50:300");
     const parsed = PrecisionRequest.safeParse({
-      selection: { genotype: values.genotype },
+      selection: genotypeSelection(values.genotype as string | undefined),
       channels: (values.channel as string | undefined)?.split(",").map((c) => c.trim()),
       coords: values.coords,
       normalisation: values.normalize,

@@ -1,6 +1,9 @@
 import type { ComputeTask } from "../jobs/computeTask.ts";
 import { runFitTask, type FitTaskInput } from "./fits/fitTask.ts";
 import { runPrecisionTask, type PrecisionTaskInput } from "./precision/precisionTask.ts";
+import { runCompareTask, type CompareTaskInput } from "./groups/compareTask.ts";
+import { runPlanTask, runTrackTask, type TrackTaskInput } from "./groups/trackTask.ts";
+import type { PlanOptionsInput } from "../analysis/compare/planning/planOptions.ts";
 
 /**
  * Every computation a job may run in a worker thread, by name. Each is pure:
@@ -10,6 +13,9 @@ import { runPrecisionTask, type PrecisionTaskInput } from "./precision/precision
 export const COMPUTE_TASKS: Record<string, ComputeTask> = {
   fit: (input, progress) => runFitTask(input as FitTaskInput, progress),
   precision: (input, progress) => runPrecisionTask(input as PrecisionTaskInput, progress),
+  compare: (input, progress) => runCompareTask(input as CompareTaskInput, progress),
+  track: (input, progress) => runTrackTask(input as TrackTaskInput, progress),
+  plan: (input, progress) => runPlanTask(input as PlanOptionsInput, progress),
   /** A small self-check used by the job runner's tests: counts to n, reporting progress. */
   "self-test": async (input, progress) => {
     const { n, delayMs, fail } = input as { n: number; delayMs: number; fail?: "user" | "internal" };

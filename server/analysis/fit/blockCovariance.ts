@@ -16,7 +16,7 @@ export interface BlockCovariance {
 /**
  * Full covariance s²(JᵀJ)⁻¹ of every fitted parameter at the solution held
  * by `problem`, without forming JᵀJ over all blocks. With T the weighted
- * model derivatives for θ and Φ = QR the weighted linear basis of each block,
+ * model derivatives for θ and Φ the weighted linear basis [g, 1] of each block,
  * block inversion of JᵀJ = [TᵀT TᵀΦ; ΦᵀT ΦᵀΦ] gives
  *   Cov(θ)    = s² S⁻¹,                     S = Σ_b (P⊥T_b)ᵀ(P⊥T_b)
  *   Cov(α, θ) = −s² C S⁻¹,                  C = (ΦᵀΦ)⁻¹ΦᵀT_b

@@ -56,7 +56,8 @@ export const FitOptions = z
         /** "none" (squared residuals, the default), "soft-l1" or "huber". */
         loss: z.enum(["none", "soft-l1", "huber"]).default("none"),
         /**
-         * Residual size (a.u.) where the loss turns from quadratic to linear.
+         * Residual size where the loss turns from quadratic to linear: in a.u.
+         * without weights, in units of the weighted residual √w·r with them.
          * By default 1.345 × the robust SD (scaled MAD) of an ordinary fit's residuals.
          */
         scale: positive.optional(),
@@ -70,8 +71,8 @@ export const FitOptions = z
       .strictObject({
         /** Stop when no nonlinear parameter changes by more than this relative amount; 1e-10. */
         step: positive.default(1e-10),
-        /** Stop when the actual and predicted relative decrease of the RSS fall below this; 1e-14. */
-        reduction: positive.default(1e-14),
+        /** Stop when the predicted relative decrease of the RSS (and the actual one) falls below this; 1e-13. */
+        reduction: positive.default(1e-13),
         /** Stop when the cosine between residual and every Jacobian column falls below this; 1e-10. */
         gradient: positive.default(1e-10),
       })

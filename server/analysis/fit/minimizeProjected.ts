@@ -28,12 +28,14 @@ export interface ProjectedMinimum {
  * Levenberg–Marquardt on the variable-projection residual, in the
  * logarithms of the (positive) nonlinear parameters so that a step means the
  * same relative change at any scale, with steps clipped to the bounds.
- * Marquardt's diagonal scaling (Marquardt 1963, J SIAM) and the damping
- * update of Nielsen 1999 (IMM report, DTU), as in Madsen, Nielsen & Tingleff
- * 2004, "Methods for non-linear least squares problems", §3.2. Stopping rules
- * follow MINPACK (Moré, Garbow, Hillstrom 1980): relative step, relative
- * actual and predicted reduction, and the cosine between residual and
- * Jacobian columns. On return the problem holds the state at the minimum.
+ * Marquardt's diagonal scaling (Marquardt 1963, J Soc Ind Appl Math), with
+ * the damping raised or lowered from the ratio of actual to predicted RSS
+ * decrease (Nielsen 1999, Technical Report IMM-REP-1999-05, Technical
+ * University of Denmark). Stopping rules follow Moré, Garbow & Hillstrom
+ * 1980 (MINPACK, Argonne report ANL-80-74): relative step, relative actual
+ * and predicted reduction, and the cosine between residual and Jacobian
+ * columns; a step whose predicted gain is below the reduction tolerance is
+ * not tried. On return the problem holds the state at the minimum.
  */
 export function minimizeProjected(
   problem: ProjectedProblem,

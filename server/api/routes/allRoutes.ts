@@ -1,9 +1,10 @@
 import type { RouteDefinition } from "../route.ts";
 import { fitRoutes } from "./fitRoutes.ts";
+import { groupRoutes } from "./groupRoutes.ts";
 import { importRoutes } from "./importRoutes.ts";
 import { jobRoutes } from "./jobRoutes.ts";
 import { precisionRoutes } from "./precisionRoutes.ts";
 import { profileRoutes } from "./profileRoutes.ts";
 
 /** Every API route, in the order the reference lists them. */
-export const ALL_ROUTES: RouteDefinition[] = [...importRoutes, ...profileRoutes, ...fitRoutes, ...precisionRoutes, ...jobRoutes];
+export const ALL_ROUTES: RouteDefinition[] = [...importRoutes, ...profileRoutes, ...fitRoutes, ...precisionRoutes, ...groupRoutes, ...jobRoutes];

@@ -17,11 +17,11 @@ export function preparePrecisionInput(db: Db, request: PrecisionRequest): Precis
     throw new UserError("choose-channel", `Several channels are stored (${stored.join(", ")}); choose one, or several for the joint positional error.`, { status: 400 });
   }
   for (const c of channels) if (!stored.includes(c)) throw new UserError("unknown-channel", `No profiles of channel "${c}" are stored (channels: ${stored.join(", ") || "none"}).`, { status: 404 });
-  const genotypes = request.selection.genotype ? [request.selection.genotype] : distinctValues(db, "genotype");
+  const genotypes = request.selection.genotype ? [request.selection.genotype] : (request.selection.genotypes ?? distinctValues(db, "genotype"));
   const groups = genotypes
     .map((genotype) => {
       const perChannel = channels.map((channel) => {
-        const rows = loadProfiles(db, { ...selectionFilter({ ...request.selection, genotype }), channel }).filter((p) => p.timeS === null);
+        const rows = loadProfiles(db, { ...selectionFilter({ ...request.selection, genotypes: undefined, genotype }), channel }).filter((p) => p.timeS === null);
         return {
           channel,
           profileIds: rows.map((r) => r.profileId),

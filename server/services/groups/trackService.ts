@@ -1,0 +1,86 @@
+import { storeAnalysis } from "../../../db/analyses.ts";
+import type { Db } from "../../../db/connection.ts";
+import type { PlanOptionsInput } from "../../analysis/compare/planning/planOptions.ts";
+import type { SamplePlan } from "../../analysis/compare/planning/planSampleSize.ts";
+import { UserError } from "../../userError.ts";
+import { ENGINE_VERSION } from "../../version.ts";
+import { gatherEmbryoRecords, type EmbryoRecords } from "./embryoRecords.ts";
+import { storedGroupExtras } from "./groupExtras.ts";
+import type { PlanRequest, TrackRequest } from "./trackRequest.ts";
+import type { TrackTaskInput, TrackTaskOutput } from "./trackTask.ts";
+
+export interface PreparedTracking {
+  request: TrackRequest;
+  gathered: Omit<EmbryoRecords, "records">;
+  task: TrackTaskInput;
+}
+
+export function prepareTracking(db: Db, request: TrackRequest): PreparedTracking {
+  const { records, ...gathered } = gatherEmbryoRecords(db, request);
+  let task: TrackTaskInput;
+  if (request.over === "stage" || request.over === "age") {
+    task = {
+      over: "time",
+      records,
+      options: { metric: request.metric, time: request.over === "stage" ? "stage" : "ageS", by: "group", trend: request.trend, bins: request.bins, bootstrap: request.bootstrap, seed: request.seed },
+    };
+  } else if (request.over === "dosage") {
+    const withDosage = records.filter((r) => r.dosage !== undefined);
+    if (new Set(withDosage.map((r) => r.dosage)).size < 2) throw new UserError("no-dosage-series", "A dosage series needs embryos of at least two dosages (a dosage column in the data or side file).", { status: 422 });
+    // λ from profile fits: the global fit of the dosage-1 line when one is stored.
+    const units = new Set(withDosage.filter((r) => r.dosage === 1).map((r) => r.genotype));
+    if (units.size > 1) {
+      throw new UserError("mixed-dosage-series", `Several genotypes have dosage 1 (${[...units].join(", ")}); choose the lines of one series, e.g. --genotype ${[...new Set(withDosage.map((r) => r.genotype))].filter((g) => !units.has(g) || g === [...units][0]).join(",")}.`, { status: 422 });
+    }
+    const unit = [...units][0];
+    const global = unit ? storedGroupExtras(db, gathered.channel, request.fitModel)[unit]?.lambdaGlobalUm : undefined;
+    task = { over: "dosage", records: withDosage, options: { lambdaFitUm: global, bootstrap: request.bootstrap, seed: request.seed } };
+  } else {
+    task = { over: "length", records };
+  }
+  return { request, gathered, task };
+}
+
+export function storeTracking(db: Db, prepared: PreparedTracking, output: TrackTaskOutput) {
+  const analysisId = storeAnalysis(db, {
+    kind: "tracking",
+    selection: { ...prepared.request.selection, channel: prepared.gathered.channel },
+    settings: { ...prepared.request, threshold: prepared.gathered.threshold },
+    engineVersion: ENGINE_VERSION,
+    result: output,
+    profileIds: prepared.gathered.profileIds,
+  });
+  return { analysis_id: analysisId, over: prepared.request.over, channel: prepared.gathered.channel, fit_model: prepared.gathered.fitModel, boundary_threshold: prepared.gathered.threshold, fitted_now: prepared.gathered.fittedNow, result: output.result };
+}
+
+export interface PreparedPlan {
+  request: PlanRequest;
+  gathered: Omit<EmbryoRecords, "records"> | null;
+  group: string | null;
+  options: PlanOptionsInput;
+}
+
+/** The plan's variability comes from the observed λ of one group (the largest, unless chosen). */
+export function preparePlan(db: Db, request: PlanRequest): PreparedPlan {
+  const base = { effect: request.effect, power: request.power, alpha: request.alpha, simulations: request.simulations, permutationSimulations: request.permutationSimulations, seed: request.seed };
+  if (request.metric === "sigma_x") return { request, gathered: null, group: null, options: { ...base, quantity: "spread" } };
+  const { records, ...gathered } = gatherEmbryoRecords(db, request);
+  const byGroup = new Map<string, number[]>();
+  for (const r of records) if (r.converged && Number.isFinite(r.lambdaUm)) byGroup.set(r.group, [...(byGroup.get(r.group) ?? []), r.lambdaUm]);
+  const group = request.group ?? [...byGroup].sort((a, b) => b[1].length - a[1].length)[0]?.[0];
+  const observed = group ? byGroup.get(group) : undefined;
+  if (!observed || observed.length < 3) throw new UserError("too-few-embryos", `Planning needs the fitted λ of at least 3 embryos of one group${group ? ` ("${group}" has ${observed?.length ?? 0})` : ""}.`, { status: 422 });
+  return { request, gathered, group, options: { ...base, quantity: "mean", observed } };
+}
+
+export function storePlan(db: Db, prepared: PreparedPlan, plan: SamplePlan) {
+  const analysisId = storeAnalysis(db, {
+    kind: "plan",
+    selection: { ...prepared.request.selection, channel: prepared.gathered?.channel ?? null, group: prepared.group },
+    settings: prepared.request,
+    engineVersion: ENGINE_VERSION,
+    result: plan,
+    profileIds: prepared.gathered?.profileIds ?? [],
+  });
+  return { analysis_id: analysisId, metric: prepared.request.metric, group: prepared.group, ...plan };
+}
