@@ -89,6 +89,7 @@ export function precisionSummary(analysisId: number, g: PrecisionGroupOutput, r:
     normalisation: r.normalisation.method,
     derivative: r.settings.derivative.description,
     flipped: r.orientation,
+    decoding: r.decoding,
     outliers: r.outliers,
     warnings: r.warnings,
     settings: r.settings,
