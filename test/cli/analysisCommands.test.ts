@@ -1,0 +1,150 @@
+import { mkdtempSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { beforeAll, describe, expect, it } from "vitest";
+import { SCENARIO } from "../../fixtures/demoScenario.ts";
+import { normalQuantile } from "../../server/analysis/stats/normal.ts";
+import { runCliInProcess } from "../helpers/runCliInProcess.ts";
+
+// The demo data's generating values are stated in fixtures/README.md; these end-to-end
+// checks confirm the commands recover them (Source: fixtures/demoScenario.ts, the generator).
+const WT_LAMBDA = SCENARIO.genotypes[0].lambdaUm;
+const TARDY_OVER_WT = Math.SQRT2; // degradation halved ⇒ λ = √(D/k) grows by √2 (science.md §1)
+
+describe("analysis commands on the demo database", () => {
+  const dir = mkdtempSync(join(tmpdir(), "mg-an-"));
+  const db = join(dir, "demo.db");
+  const cli = async (...args: string[]) => {
+    const r = await runCliInProcess([...args, "--db", db], {}, dir);
+    if (r.code !== 0) throw new Error(`morphogauge ${args.join(" ")} exited ${r.code}: ${r.stderr}`);
+    return r;
+  };
+  const json = async (...args: string[]) => JSON.parse((await cli(...args, "--json")).stdout);
+
+  beforeAll(async () => {
+    await cli("demo");
+  });
+
+  it("fit --model all --json gives one object per profile and model with λ, amplitude, background, AICc and status", async () => {
+    const out = await json("fit", "--genotype", "wt", "--channel", "glm", "--model", "all", "--window", "30:");
+    expect(out.fits).toHaveLength(30 * 5);
+    for (const f of out.fits) {
+      expect(Object.keys(f)).toEqual(expect.arrayContaining(["embryo", "genotype", "channel", "model", "lambda_um", "amplitude", "background", "aicc", "status"]));
+      if (f.status === "converged" && f.lambda_um) {
+        expect(f.lambda_um.ci95[0]).toBeLessThan(f.lambda_um.value);
+        expect(f.lambda_um.ci95[1]).toBeGreaterThan(f.lambda_um.value);
+      }
+    }
+    const weights = out.fits.filter((f: { embryo: string }) => f.embryo === "wt-01").map((f: { akaike_weight: number }) => f.akaike_weight);
+    expect(weights.reduce((a: number, b: number) => a + b, 0)).toBeCloseTo(1, 10);
+    expect(out.caveat).toContain("λ = √(D/k)");
+  });
+
+  it("fit --global recovers the wild-type decay length the demo was generated with", async () => {
+    const out = await json("fit", "--genotype", "wt", "--channel", "glm", "--model", "finite", "--window", "30:", "--global");
+    const g = out.global[0];
+    expect(g).toMatchObject({ genotype: "wt", channel: "glm", model: "finite", n_embryos: 30 });
+    // Per-embryo λ vary by 8% around the genotype value; the mean of 30 is within ~3% of it.
+    expect(Math.abs(g.per_embryo.mean_um - WT_LAMBDA) / WT_LAMBDA).toBeLessThan(0.03);
+    expect(Math.abs(g.lambda_um.value - WT_LAMBDA) / WT_LAMBDA).toBeLessThan(0.03);
+  });
+
+  it("refitting with the same options replaces the stored fits; other options add new ones", async () => {
+    const count = async () => (await json("fit", "--genotype", "wt", "--channel", "glm", "--window", "30:")).fits.map((f: { fit_id: number }) => f.fit_id);
+    const first = await count();
+    const again = await count();
+    expect(again).toEqual(first);
+    const other = (await json("fit", "--genotype", "wt", "--channel", "glm", "--window", "40:")).fits.map((f: { fit_id: number }) => f.fit_id);
+    expect(other.some((id: number) => first.includes(id))).toBe(false);
+  });
+
+  it("fit --diffusion adds k, half-life and source flux with delta-method errors", async () => {
+    const out = await json("fit", "--embryo", "wt-01", "--channel", "glm", "--window", "30:", "--diffusion", "0.8±0.1");
+    const d = out.fits[0].derived;
+    const lambda = out.fits[0].lambda_um.value;
+    // Source: k = D/λ² and t½ = ln2/k (science.md §1).
+    expect(d.degradationPerS.value).toBeCloseTo(0.8 / lambda ** 2, 12);
+    expect(d.halfLifeS.value).toBeCloseTo(Math.LN2 / d.degradationPerS.value, 6);
+    expect(d.degradationPerS.se).toBeGreaterThan(0);
+  });
+
+  it("precision --json returns σ_x with its band, the minimal σ_x, boundary spread and positional information", async () => {
+    const out = await json("precision", "--genotype", "wt", "--channel", "glm", "--bootstrap", "200");
+    expect(out).toMatchObject({ group: "wt", n_embryos: 30, coords: "absolute" });
+    expect(out.x.length).toBe(out.sigma_x.length);
+    expect(out.sigma_x_ci95.length).toBe(out.x.length);
+    expect(out.min_sigma_x.value).toBeGreaterThan(0);
+    expect(out.min_sigma_x.ci95).toHaveLength(2);
+    expect(Object.keys(out.boundary.positions)).toHaveLength(30);
+    expect(out.boundary.sd).toBeGreaterThan(0);
+    expect(out.positional_information_bits.small_noise).toBeGreaterThan(0);
+    expect(out.positional_information_bits.direct).toBeGreaterThan(0);
+    expect(out.positional_information_bits.ci95.small_noise).toHaveLength(2);
+    // Expected relative error of σ_x from n embryos: 1/√(2(n−1)). Source: Gregor et al. 2007, Cell.
+    expect(out.sigma_x_expected_relative_error).toBeCloseTo(1 / Math.sqrt(58), 12);
+  });
+
+  it("precision with two channels adds the joint positional error", async () => {
+    const out = await json("precision", "--genotype", "wt", "--channel", "glm,vellin", "--bootstrap", "100");
+    expect(out.joint.channels).toEqual(["glm", "vellin"]);
+    expect(out.per_channel[0].channel).toBe("vellin");
+  });
+
+  it("compare --json shows tardy's λ exceeds wild type's by about √2, as generated, and glm-2x's does not", async () => {
+    await cli("fit", "--channel", "glm", "--model", "finite", "--window", "30:");
+    const out = await json("compare", "--channel", "glm", "--fit-model", "finite", "--reference", "wt", "--genotype", "wt,tardy,glm-2x", "--permutations", "2000");
+    expect(out.groups.map((g: { name: string }) => g.name).sort()).toEqual(["glm-2x", "tardy", "wt"]);
+    const wt = out.groups.find((g: { name: string }) => g.name === "wt");
+    expect(Object.keys(wt.lambda_um)).toEqual(expect.arrayContaining(["mean", "sd", "sem", "median", "ci95"]));
+    const tardy = out.contrasts.find((c: { a: string }) => c.a === "tardy");
+    expect(tardy.b).toBe("wt");
+    expect(tardy.ratio.ci95[0]).toBeLessThan(TARDY_OVER_WT * 1.03);
+    expect(tardy.ratio.ci95[1]).toBeGreaterThan(TARDY_OVER_WT * 0.97);
+    expect(tardy.p_holm).toBeLessThan(0.01);
+    const dose = out.contrasts.find((c: { a: string }) => c.a === "glm-2x");
+    expect(dose.ratio.ci95[0]).toBeLessThan(1.03);
+    expect(dose.ratio.ci95[1]).toBeGreaterThan(0.97);
+    for (const c of out.contrasts) expect(Object.keys(c)).toEqual(expect.arrayContaining(["a", "b", "difference", "ratio", "p_welch", "p_permutation", "p_holm", "effect_size"]));
+  });
+
+  it("track --over dosage estimates λ from the boundary shift and finds it agrees with the fits", async () => {
+    const out = await json("track", "--over", "dosage", "--channel", "glm", "--fit-model", "finite", "--genotype", "glm-0.5x,wt,glm-2x,glm-4x");
+    const shift = out.result.lambda_from_shift_um;
+    // Source: Δx = λ·ln f for an exponential gradient read at a fixed threshold (science.md §5).
+    expect(shift.ci95[0]).toBeLessThan(WT_LAMBDA);
+    expect(shift.ci95[1]).toBeGreaterThan(WT_LAMBDA);
+    expect(out.result.agree).toBe(true);
+    expect(out.result.dosages.map((d: { dosage: number }) => d.dosage)).toEqual([0.5, 1, 2, 4]);
+  });
+
+  it("track refuses a dosage series that mixes two dosage-1 genotypes", async () => {
+    const r = await runCliInProcess(["track", "--over", "dosage", "--channel", "glm", "--db", db], {}, dir);
+    expect(r.code).toBe(1);
+    expect(r.stderr).toContain("Several genotypes have dosage 1");
+  });
+
+  it("track --over age and --over length report trends and scaling slopes per genotype", async () => {
+    const age = await json("track", "--over", "age", "--channel", "glm", "--genotype", "wt,tardy");
+    expect(age.result.series.map((s: { group: string }) => s.group).sort()).toEqual(["tardy", "wt"]);
+    const length = await json("track", "--over", "length", "--channel", "glm", "--genotype", "wt");
+    expect(length.result.groups[0].lambda.slope.ci95).toHaveLength(2);
+  });
+
+  it("plan --json gives the embryos per group from the observed variability, matching the normal-approximation formula", async () => {
+    const out = await json("plan", "--effect", "0.15", "--channel", "glm", "--group", "wt");
+    // Source: n = 2(z_{1−α/2} + z_{1−β})² CV²/Δ² (Chow, Shao & Wang 2008, §3.2; value from memory).
+    const z = normalQuantile(0.975) + normalQuantile(0.8);
+    expect(out.n_normal).toBe(Math.ceil((2 * z * z * out.cv ** 2) / 0.15 ** 2));
+    expect(out.n_required).toBeGreaterThanOrEqual(out.n_normal);
+    expect(out.table.length).toBeGreaterThan(0);
+  });
+
+  it("analysis commands name a wrong genotype or channel plainly", async () => {
+    const r = await runCliInProcess(["fit", "--genotype", "nonesuch", "--db", db], {}, dir);
+    expect(r.code).toBe(1);
+    expect(r.stderr).toContain('No stored profiles match genotype "nonesuch"');
+    const c = await runCliInProcess(["precision", "--genotype", "wt", "--db", db], {}, dir);
+    expect(c.code).toBe(1);
+    expect(c.stderr).toContain("Several channels are stored (glm, vellin)");
+  });
+});
