@@ -5,7 +5,7 @@ import { normalQuantile } from "./stats/normal.ts";
 
 /**
  * What a steady-state profile can and cannot tell, attached to every derived
- * result. Source: science.md §1 ("What one steady-state profile can tell
+ * result. Source: METHODS.md §1 ("What one steady-state profile can tell
  * you"); FRAP's D versus the gradient's D: Sigaut et al. 2014, PLoS Comput Biol.
  */
 export const steadyStateCaveat =
@@ -31,7 +31,7 @@ export interface DecayLengthQuantities {
  * Quantities that follow from λ alone: D/k = λ² with se 2λ·se(λ) (delta
  * method), and λ/L with se se(λ)/L (L taken as exact). Their intervals are
  * λ's interval carried through the (monotone) transformation.
- * Source: λ = √(D/k) for SDD gradients (science.md §1).
+ * Source: λ = √(D/k) for SDD gradients (METHODS.md §1).
  */
 export function quantitiesFromDecayLength(lambdaUm: Estimate, lengthUm: number | null = null): DecayLengthQuantities {
   const l = lambdaUm.value;
@@ -97,7 +97,7 @@ export interface KineticQuantities {
  * intervals are formed on the log scale, v·exp(±1.96·se/v), which keeps
  * these positive quantities positive.
  *
- * Formulas (science.md §1–2):
+ * Formulas (METHODS.md §1–2):
  *   k = D/λ²;  t½ = ln2/k;
  *   exponential and localized source: A = j0λ/D, so j0 = A·D/λ
  *     (for the source model j0 = ν·s, the total production);

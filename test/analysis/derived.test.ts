@@ -19,7 +19,7 @@ function simpson(f: (x: number) => number, a: number, b: number, n: number): num
 
 describe("quantitiesFromDecayLength", () => {
   it("gives D/k = λ² with se 2λ·se(λ), and λ/L with se se(λ)/L, each with the caveat", () => {
-    // Source: λ = √(D/k) (science.md §1); delta method (Casella & Berger 2002, §5.5.4).
+    // Source: λ = √(D/k) (METHODS.md §1); delta method (Casella & Berger 2002, §5.5.4).
     const q = quantitiesFromDecayLength({ value: 50, se: 2, ci95: [46, 54] }, 400);
     expect(q.diffusionOverDegradationUm2).toEqual({ value: 2500, se: 200, ci95: [2116, 2916], unit: "µm²", fixed: false });
     expect(q.lambdaFractionOfLength).toEqual({ value: 0.125, se: 0.005, ci95: [0.115, 0.135], unit: "", fixed: false });
@@ -32,7 +32,7 @@ describe("quantitiesFromDecayLength", () => {
 
 describe("kineticsWithDiffusion", () => {
   it("k = D/λ² and t½ = ln2/k", () => {
-    // Source: λ = √(D/k) (science.md §1); first-order decay half-life ln2/k.
+    // Source: λ = √(D/k) (METHODS.md §1); first-order decay half-life ln2/k.
     const q = kineticsWithDiffusion({ model: "exponential", lambdaUm: { value: 40, se: 0, ci95: [40, 40] }, diffusion: exactD });
     expect(q.degradationPerS.value).toBeCloseTo(2 / 1600, 15);
     expect(q.halfLifeS.value).toBeCloseTo((Math.LN2 * 1600) / 2, 10);
@@ -40,7 +40,7 @@ describe("kineticsWithDiffusion", () => {
   });
 
   it("the source flux equals the influx −D·c'(0) of the fitted profile (exponential and finite)", () => {
-    // Source: definition of the influx boundary −D c'(0) = j0 (science.md conventions); central difference.
+    // Source: definition of the influx boundary −D c'(0) = j0 (METHODS.md conventions); central difference.
     const h = 1e-4;
     const lambdaUm = 60;
     const amplitude = 80;
@@ -53,7 +53,7 @@ describe("kineticsWithDiffusion", () => {
   });
 
   it("the source flux balances degradation: k∫c dx = j0 (finite domain and localized source)", () => {
-    // Source: ∫c dx = j0/k on [0, L] and k∫c = νs for the localized source (science.md §1).
+    // Source: ∫c dx = j0/k on [0, L] and k∫c = νs for the localized source (METHODS.md §1).
     const lambdaUm = 40;
     const k = exactD.valueUm2PerS / lambdaUm ** 2;
     const finite = (x: number) => simulateProfile("finite", [x], [lambdaUm], 50, 0, { lengthUm: 100 })[0];
@@ -67,7 +67,7 @@ describe("kineticsWithDiffusion", () => {
 
   it("τ(x) = (1 + x/λ)/(2k) matches ∫(1 − c(x,t)/c_s(x))dt of the time-dependent solution", () => {
     // Source: Berezhkovskii, Sample & Shvartsman 2010, Biophys J; checked against the pre-steady-state
-    // solution of science.md §2, c/c_s = ½[erfc(x/√(4Dt) − √(kt)) − e^(2x/λ) erfc(x/√(4Dt) + √(kt))],
+    // solution of METHODS.md §2, c/c_s = ½[erfc(x/√(4Dt) − √(kt)) − e^(2x/λ) erfc(x/√(4Dt) + √(kt))],
     // integrated numerically over ln t.
     const D = 2;
     const lambdaUm = 30;
@@ -142,7 +142,7 @@ describe("interpretFit", () => {
   });
 
   it("without D reports only the quantities that follow from λ", () => {
-    // Source: science.md §1 (a profile alone fixes only λ = √(D/k)).
+    // Source: METHODS.md §1 (a profile alone fixes only λ = √(D/k)).
     const x = positions(0, 200, 50);
     const fit = fitProfile(x, simulateProfile("finite", x, [70], 50, 3, { lengthUm: 200 }), FitOptions.parse({ model: "finite" }), { lengthUm: 200 }) as ProfileFit;
     const result = interpretFit(fit);

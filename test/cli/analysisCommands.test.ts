@@ -9,7 +9,7 @@ import { runCliInProcess } from "../helpers/runCliInProcess.ts";
 // The demo data's generating values are stated in fixtures/README.md; these end-to-end
 // checks confirm the commands recover them (Source: fixtures/demoScenario.ts, the generator).
 const WT_LAMBDA = SCENARIO.genotypes[0].lambdaUm;
-const TARDY_OVER_WT = Math.SQRT2; // degradation halved ⇒ λ = √(D/k) grows by √2 (science.md §1)
+const TARDY_OVER_WT = Math.SQRT2; // degradation halved ⇒ λ = √(D/k) grows by √2 (METHODS.md §1)
 
 describe("analysis commands on the demo database", () => {
   const dir = mkdtempSync(join(tmpdir(), "mg-an-"));
@@ -62,7 +62,7 @@ describe("analysis commands on the demo database", () => {
     const out = await json("fit", "--embryo", "wt-01", "--channel", "glm", "--window", "30:", "--diffusion", "0.8±0.1");
     const d = out.fits[0].derived;
     const lambda = out.fits[0].lambda_um.value;
-    // Source: k = D/λ² and t½ = ln2/k (science.md §1).
+    // Source: k = D/λ² and t½ = ln2/k (METHODS.md §1).
     expect(d.degradationPerS.value).toBeCloseTo(0.8 / lambda ** 2, 12);
     expect(d.halfLifeS.value).toBeCloseTo(Math.LN2 / d.degradationPerS.value, 6);
     expect(d.degradationPerS.se).toBeGreaterThan(0);
@@ -110,7 +110,7 @@ describe("analysis commands on the demo database", () => {
   it("track --over dosage estimates λ from the boundary shift and finds it agrees with the fits", async () => {
     const out = await json("track", "--over", "dosage", "--channel", "glm", "--fit-model", "finite", "--genotype", "glm-0.5x,wt,glm-2x,glm-4x");
     const shift = out.result.lambda_from_shift_um;
-    // Source: Δx = λ·ln f for an exponential gradient read at a fixed threshold (science.md §5).
+    // Source: Δx = λ·ln f for an exponential gradient read at a fixed threshold (METHODS.md §5).
     expect(shift.ci95[0]).toBeLessThan(WT_LAMBDA);
     expect(shift.ci95[1]).toBeGreaterThan(WT_LAMBDA);
     expect(out.result.agree).toBe(true);

@@ -11,7 +11,7 @@ import { solveLinear } from "../linalg/solveLinear.ts";
  * domain included): integrating λ²y'' = y − B twice gives
  *   y = a + b(x − x₀) − (B/2λ²)(x − x₀)² + (1/λ²)·SS(x),
  * with SS the double running integral; the coefficient of SS is 1/λ².
- * Derived here from the steady-state equation (science.md §1); integrals by
+ * Derived here from the steady-state equation (METHODS.md §1); integrals by
  * the trapezoid rule, so noise is averaged rather than differentiated.
  * Returns null when the regression finds no decay (wrong sign) or fails.
  */

@@ -3,7 +3,7 @@ import type { DerivedQuantity } from "./steadyStateModel.ts";
 /**
  * D/k = λ² for every synthesis–diffusion–degradation model, where λ = √(D/k)
  * is θ[0]. A steady-state profile fixes only this ratio, not D and k
- * separately. Source: the SDD steady state c'' = c/λ² (science.md §1).
+ * separately. Source: the SDD steady state c'' = c/λ² (METHODS.md §1).
  */
 export const diffusionOverDegradation: DerivedQuantity = {
   name: "diffusionOverDegradationUm2",

@@ -9,12 +9,12 @@ import { lengthScaleBounds } from "./lengthScaleBounds.ts";
  * Exponential gradient A·e^(−x/λ) + B: the steady state of
  * ∂c/∂t = D c'' − k c on a semi-infinite domain with influx j0 at x = 0,
  * c = (j0λ/D) e^(−x/λ), λ = √(D/k). Source: textbook SDD steady state
- * (science.md §1, first row), e.g. Crank, The Mathematics of Diffusion.
+ * (METHODS.md §1, first row), e.g. Crank, The Mathematics of Diffusion.
  */
 export const exponentialModel: SteadyStateModel = {
   name: "exponential",
   formula: "A·exp(−x/λ) + B",
-  source: "SDD steady state on a semi-infinite domain with influx at x = 0 (science.md §1)",
+  source: "SDD steady state on a semi-infinite domain with influx at x = 0 (METHODS.md §1)",
   requiresLength: false,
   parameters: [{ name: "lambdaUm", unit: "µm", description: "decay length λ = √(D/k)" }],
   amplitudeDescription: "A = j0·λ/D, the intensity above background at the source (x = 0)",

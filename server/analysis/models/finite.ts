@@ -8,11 +8,11 @@ import { lengthScaleBounds } from "./lengthScaleBounds.ts";
  * Gradient on a finite embryo [0, L] with influx at x = 0 and no flux at
  * x = L: A·cosh((L−x)/λ)/cosh(L/λ) + B, so A is the intensity above
  * background at the source. Source: SDD steady state with a no-flux far
- * boundary, c = (j0λ/D)·cosh((L−x)/λ)/sinh(L/λ) (science.md §1, second row),
+ * boundary, c = (j0λ/D)·cosh((L−x)/λ)/sinh(L/λ) (METHODS.md §1, second row),
  * renormalised to c(0) = A = (j0λ/D)·coth(L/λ).
  *
  * cosh overflows for L/λ > ~710, so the basis is evaluated in the
- * overflow-free form (science.md §1, "Overflow"):
+ * overflow-free form (METHODS.md §1, "Overflow"):
  *   g = [e^(−x/λ) + e^(−(2L−x)/λ)] / (1 + e^(−2L/λ)),
  * obtained by multiplying numerator and denominator by e^(−L/λ); every
  * exponent is ≤ 0 for 0 ≤ x ≤ L.
@@ -20,7 +20,7 @@ import { lengthScaleBounds } from "./lengthScaleBounds.ts";
 export const finiteModel: SteadyStateModel = {
   name: "finite",
   formula: "A·cosh((L−x)/λ)/cosh(L/λ) + B",
-  source: "SDD steady state on [0, L] with influx at 0 and no flux at L (science.md §1)",
+  source: "SDD steady state on [0, L] with influx at 0 and no flux at L (METHODS.md §1)",
   requiresLength: true,
   parameters: [{ name: "lambdaUm", unit: "µm", description: "decay length λ = √(D/k)" }],
   amplitudeDescription: "A = (j0·λ/D)·coth(L/λ), the intensity above background at the source (x = 0)",

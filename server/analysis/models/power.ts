@@ -6,7 +6,7 @@ import { lengthScaleBounds } from "./lengthScaleBounds.ts";
  * Power-law gradient A·(1 + x/x0)^(−2) + B from quadratic self-enhanced
  * degradation ∂c/∂t = D c'' − k c². Source: Eldar, Rosin, Shilo, Barkai 2003,
  * Dev Cell: steady state c = 6D/(k (x + ε)²) on a semi-infinite domain, i.e.
- * A = 6D/(k x0²) with x0 = ε (science.md §1, nonlinear degradation).
+ * A = 6D/(k x0²) with x0 = ε (METHODS.md §1, nonlinear degradation).
  */
 export const powerModel: SteadyStateModel = {
   name: "power",

@@ -6,7 +6,7 @@ import { lengthScaleBounds } from "./lengthScaleBounds.ts";
  * Power law with a free exponent, A·(1 + x/x0)^(−m) + B, from degradation of
  * order n: ∂c/∂t = D c'' − k cⁿ has the steady state c = A'/(x + ε)^m with
  * m = 2/(n−1) and A' = [m(m+1)D/k]^(1/(n−1)). Source: Eldar, Rosin, Shilo,
- * Barkai 2003, Dev Cell (science.md §1, nonlinear degradation). m = 2 is the
+ * Barkai 2003, Dev Cell (METHODS.md §1, nonlinear degradation). m = 2 is the
  * `power` model (n = 2); large m with m/x0 fixed tends to an exponential.
  * Evaluated as exp(−m·log1p(x/x0)) for accuracy near x = 0.
  */

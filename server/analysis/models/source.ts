@@ -5,7 +5,7 @@ import { lengthScaleBounds } from "./lengthScaleBounds.ts";
 
 /**
  * Localized source: production at constant rate ν in 0 < x < s, no flux at
- * x = 0, degradation everywhere. Source: SDD steady states in science.md §1
+ * x = 0, degradation everywhere. Source: SDD steady states in METHODS.md §1
  * (rows three and four, [derived] there):
  *   semi-infinite, x < s: (ν/k)[1 − e^(−s/λ) cosh(x/λ)]
  *                  x > s: (ν/k) sinh(s/λ) e^(−x/λ)
@@ -16,7 +16,7 @@ import { lengthScaleBounds } from "./lengthScaleBounds.ts";
  * Amplitude: A = νs·λ/(D) = (ν/k)(s/λ), i.e. j0λ/D with j0 = νs the total
  * production, so that the basis is g = (λ/s)·h with h the bracketed shape
  * above. With this choice A has the same meaning as in the exponential model
- * and g → e^(−x/λ) as s → 0 (science.md: s→0 with νs = j0 gives row one).
+ * and g → e^(−x/λ) as s → 0 (METHODS.md: s→0 with νs = j0 gives row one).
  *
  * Evaluated without overflow: every term is rewritten as a product of
  * exponentials with non-positive exponents, e.g. for x > s
@@ -27,7 +27,7 @@ import { lengthScaleBounds } from "./lengthScaleBounds.ts";
 export const sourceModel: SteadyStateModel = {
   name: "source",
   formula: "A·(λ/s)·h(x; λ, s, L) + B, h the localized-source SDD steady state",
-  source: "SDD steady state with production in 0 < x < s (science.md §1)",
+  source: "SDD steady state with production in 0 < x < s (METHODS.md §1)",
   requiresLength: false,
   parameters: [
     { name: "lambdaUm", unit: "µm", description: "decay length λ = √(D/k)" },

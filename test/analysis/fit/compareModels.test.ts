@@ -25,7 +25,7 @@ describe("compareModels", () => {
   });
 
   it("flags exponential and finite as indistinguishable when L/λ = 30", () => {
-    // Source: the two shapes differ by < e^(−30) when L/λ = 30 (science.md §1).
+    // Source: the two shapes differ by < e^(−30) when L/λ = 30 (METHODS.md §1).
     const random = createRandom(32);
     const y = simulateProfile("exponential", x, [10], 100, 10, { noiseSd: 1, random });
     const c = compareModels(x, y, ["exponential", "finite"], options, { lengthUm: 300 });

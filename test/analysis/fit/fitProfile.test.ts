@@ -55,7 +55,7 @@ describe("fitProfile recovers generating parameters from noise-free profiles to 
 
 describe("fitProfile limits of the finite-domain model", () => {
   it("gives the exponential model's λ (to 1e-6) when L/λ > 15", () => {
-    // Source: cosh((L−x)/λ)/cosh(L/λ) → e^(−x/λ) for L ≫ λ (science.md §1); the shapes differ by < e^(−L/λ).
+    // Source: cosh((L−x)/λ)/cosh(L/λ) → e^(−x/λ) for L ≫ λ (METHODS.md §1); the shapes differ by < e^(−L/λ).
     const random = createRandom(61);
     const x = positions(0, 400, 160);
     const y = simulateProfile("exponential", x, [20], 100, 10, { noiseSd: 1, random });
@@ -65,7 +65,7 @@ describe("fitProfile limits of the finite-domain model", () => {
   });
 
   it("fits without overflow at L/λ = 1000", () => {
-    // Source: cosh(1000) overflows double precision; the overflow-free form of science.md §1 must not.
+    // Source: cosh(1000) overflows double precision; the overflow-free form of METHODS.md §1 must not.
     const x = positions(0, 5000, 400);
     const y = simulateProfile("finite", x, [5], 100, 10, { lengthUm: 5000 });
     const fit = expectFitted(fitProfile(x, y, FitOptions.parse({ model: "finite" }), { lengthUm: 5000 }));
@@ -122,7 +122,7 @@ describe("fitProfile results", () => {
   });
 
   it("reports D/k = λ² with the delta-method se 2λ·se(λ)", () => {
-    // Source: λ = √(D/k) (science.md §1); delta method.
+    // Source: λ = √(D/k) (METHODS.md §1); delta method.
     const lambda = fit.parameters.lambdaUm;
     expect(fit.derived.diffusionOverDegradationUm2.value).toBeCloseTo(lambda.value ** 2, 9);
     expect(fit.derived.diffusionOverDegradationUm2.se!).toBeCloseTo(2 * lambda.value * lambda.se!, 9);

@@ -4,14 +4,14 @@ import { evaluateBasis, grid, jacobianDiscrepancy } from "./basisCheck.ts";
 
 describe("exponentialModel", () => {
   it("basis is e^(−x/λ), the semi-infinite SDD steady state", () => {
-    // Source: textbook SDD steady state c ∝ e^(−x/λ) (science.md §1, first row).
+    // Source: textbook SDD steady state c ∝ e^(−x/λ) (METHODS.md §1, first row).
     const x = grid(0, 400, 201);
     const { value } = evaluateBasis(exponentialModel, x, [37.5]);
     x.forEach((xi, i) => expect(Math.abs(value[i] - Math.exp(-xi / 37.5))).toBeLessThanOrEqual(1e-14 * Math.exp(-xi / 37.5) + 1e-300));
   });
 
   it("basis solves λ²g'' = g (the steady-state equation) by finite differences", () => {
-    // Source: D c'' − k c = 0 with λ² = D/k (science.md §1); second difference, common practice.
+    // Source: D c'' − k c = 0 with λ² = D/k (METHODS.md §1); second difference, common practice.
     const lambdaUm = 20;
     const h = 1e-3;
     for (const xi of [0.5, 10, 35, 80]) {
@@ -35,7 +35,7 @@ describe("exponentialModel", () => {
   });
 
   it("declares D/k = λ² as a derived quantity with gradient 2λ", () => {
-    // Source: λ = √(D/k) (science.md §1).
+    // Source: λ = √(D/k) (METHODS.md §1).
     const gradient = new Float64Array(3);
     const [ratio] = exponentialModel.derived;
     expect(ratio.evaluate([12], 5, 1, gradient)).toBe(144);

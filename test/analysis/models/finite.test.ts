@@ -5,7 +5,7 @@ import { evaluateBasis, grid, jacobianDiscrepancy } from "./basisCheck.ts";
 
 describe("finiteModel", () => {
   it("basis equals cosh((L−x)/λ)/cosh(L/λ) evaluated directly where cosh does not overflow", () => {
-    // Source: SDD steady state with no flux at L (science.md §1, second row), renormalised to g(0) = 1.
+    // Source: SDD steady state with no flux at L (METHODS.md §1, second row), renormalised to g(0) = 1.
     const L = 500;
     for (const lambdaUm of [30, 150, 900]) {
       const x = grid(0, L, 101);
@@ -18,7 +18,7 @@ describe("finiteModel", () => {
   });
 
   it("has zero slope at the far end (no flux at x = L) and g(0) = 1", () => {
-    // Source: no-flux boundary c'(L) = 0 (science.md §1); central difference, common practice.
+    // Source: no-flux boundary c'(L) = 0 (METHODS.md §1); central difference, common practice.
     const L = 300;
     const h = 1e-4;
     const [gm, gp] = evaluateBasis(finiteModel, [L - 2 * h, L], [80], L).value;
@@ -28,7 +28,7 @@ describe("finiteModel", () => {
   });
 
   it("equals the exponential basis within 1e-6 once L/λ > 15", () => {
-    // Source: cosh((L−x)/λ)/cosh(L/λ) − e^(−x/λ) ≤ e^(−L/λ) on [0, L] (science.md §1, derived).
+    // Source: cosh((L−x)/λ)/cosh(L/λ) − e^(−x/λ) ≤ e^(−L/λ) on [0, L] (METHODS.md §1, derived).
     const L = 480;
     const lambdaUm = L / 15.5;
     const x = grid(0, L, 241);
@@ -38,7 +38,7 @@ describe("finiteModel", () => {
   });
 
   it("stays finite at L/λ = 1000, where cosh overflows", () => {
-    // Source: the overflow-free form of science.md §1 ("Overflow"); cosh(1000) = Infinity in double precision.
+    // Source: the overflow-free form of METHODS.md §1 ("Overflow"); cosh(1000) = Infinity in double precision.
     const L = 1000;
     expect(Math.cosh(L / 1)).toBe(Infinity);
     const x = grid(0, L, 1001);

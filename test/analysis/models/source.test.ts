@@ -3,7 +3,7 @@ import { exponentialModel } from "../../../server/analysis/models/exponential.ts
 import { sourceModel } from "../../../server/analysis/models/source.ts";
 import { evaluateBasis, grid, jacobianDiscrepancy } from "./basisCheck.ts";
 
-// Source: localized-source SDD steady states, science.md §1 rows three and four,
+// Source: localized-source SDD steady states, METHODS.md §1 rows three and four,
 // evaluated directly with cosh/sinh; the model's basis is (λ/s)·h with h = c/(ν/k).
 function direct(x: number, lambdaUm: number, s: number, L: number): number {
   const a = Math.abs(x);
@@ -18,7 +18,7 @@ function direct(x: number, lambdaUm: number, s: number, L: number): number {
 }
 
 describe("sourceModel", () => {
-  it("basis matches the closed forms of science.md on semi-infinite and finite domains", () => {
+  it("basis matches the closed forms of METHODS.md on semi-infinite and finite domains", () => {
     for (const L of [Infinity, 400]) {
       for (const [lambdaUm, s] of [[30, 50], [80, 10], [25, 200]]) {
         const x = grid(0, 400, 161);
@@ -32,7 +32,7 @@ describe("sourceModel", () => {
   });
 
   it("solves λ²g'' − g + λ/s·[x < s] = 0 with no flux at 0 (and at L)", () => {
-    // Source: steady state of D c'' − k c + ν·[x < s] = 0 (science.md §1); finite differences, common practice.
+    // Source: steady state of D c'' − k c + ν·[x < s] = 0 (METHODS.md §1); finite differences, common practice.
     const lambdaUm = 40;
     const s = 60;
     const h = 1e-3;
@@ -50,7 +50,7 @@ describe("sourceModel", () => {
   });
 
   it("is continuous with a continuous slope at the source edge x = s", () => {
-    // Source: c and c' are continuous for a bounded production term (science.md §1); common practice.
+    // Source: c and c' are continuous for a bounded production term (METHODS.md §1); common practice.
     const h = 1e-6;
     const s = 50;
     const [left, mid, right] = evaluateBasis(sourceModel, [s - h, s, s + h], [30, s]).value;
@@ -62,7 +62,7 @@ describe("sourceModel", () => {
   });
 
   it("falls as e^(−x/λ) outside the source", () => {
-    // Source: x > s: c = (ν/k) sinh(s/λ) e^(−x/λ) (science.md §1).
+    // Source: x > s: c = (ν/k) sinh(s/λ) e^(−x/λ) (METHODS.md §1).
     const x = grid(60, 400, 69);
     const { value } = evaluateBasis(sourceModel, x, [35, 60]);
     const ratios = x.map((xi, i) => value[i] / Math.exp(-xi / 35));
@@ -70,7 +70,7 @@ describe("sourceModel", () => {
   });
 
   it("tends to the exponential basis as s → 0", () => {
-    // Source: s → 0 with νs = j0 gives the semi-infinite influx solution (science.md §1);
+    // Source: s → 0 with νs = j0 gives the semi-infinite influx solution (METHODS.md §1);
     // the difference is ≈ s/(2λ) inside the source and ≈ s²/(6λ²) outside.
     const x = grid(0, 300, 61);
     const small = evaluateBasis(sourceModel, x, [40, 4e-7]).value;
@@ -97,7 +97,7 @@ describe("sourceModel", () => {
   });
 
   it("reports ν/k = A·λ/s as the plateau inside a wide source", () => {
-    // Source: x ≪ s ≫ λ: c → ν/k (science.md §1); A = (ν/k)(s/λ) by the model's amplitude definition.
+    // Source: x ≪ s ≫ λ: c → ν/k (METHODS.md §1); A = (ν/k)(s/λ) by the model's amplitude definition.
     const gradient = new Float64Array(4);
     const plateau = sourceModel.derived.find((d) => d.name === "plateauAu")!;
     expect(plateau.evaluate([20, 400], 20, 0, gradient)).toBeCloseTo(1, 14);

@@ -59,7 +59,7 @@ describe("analysePrecision", () => {
   });
 
   it("summarises σ_x: minimum with its position, values at chosen positions and the regional mean, in µm and fraction of length", () => {
-    // Source: σ_x = λ·CV for this simulation (science.md §4 [derived]); λ = 80 µm, CV = 0.12.
+    // Source: σ_x = λ·CV for this simulation (METHODS.md §4 [derived]); λ = 80 µm, CV = 0.12.
     const r = analysePrecision(group, { ...quick, positions: [101, 200] });
     const k = r.gridX.indexOf(r.minSigmaX!.position);
     expect(r.minSigmaX!.value).toBe(r.sigmaX[k]);
@@ -123,7 +123,7 @@ describe("analysePrecision", () => {
   });
 
   it("states the normalisation and how much across-embryo variance it removed", () => {
-    // Source: science.md §4 — per-embryo normalisation removes amplitude variation; report which was used.
+    // Source: METHODS.md §4 — per-embryo normalisation removes amplitude variation; report which was used.
     const amplitude = exponentialGroup({ embryos: 40, lambdaUm: 80, cv: 0.2, noise: "amplitude", seed: 73 });
     const r = analysePrecision(amplitude, { ...quick, normalisation: "scale-offset" });
     expect(r.normalisation.method).toBe("scale-offset");

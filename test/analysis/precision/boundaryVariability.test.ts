@@ -32,7 +32,7 @@ result = [float(s), float(s * np.sqrt((n - 1) / stats.chi2.ppf(0.975, n - 1))), 
   });
 
   it("boundary SD equals σ_x at the threshold within sampling error (200 embryos, amplitude and decay-length noise)", () => {
-    // Source: Gregor et al. 2007, Cell; science.md §4 — for small noise the SD of the crossing positions equals
+    // Source: Gregor et al. 2007, Cell; METHODS.md §4 — for small noise the SD of the crossing positions equals
     // σ_x at that position. Sampling error of each: ~1/√(2(n−1)) = 5%.
     const group = exponentialGroup({ embryos: 200, lambdaUm: 80, cv: 0.1, lambdaCv: 0.04, noise: "amplitude", seed: 41 });
     const r = analysePrecision(group, { boundary: { atPosition: 200 }, bootstrap: { resamples: 200, seed: 42 }, decoding: { enabled: false }, information: { extrapolate: false } });

@@ -8,7 +8,7 @@ import { exponentialGroup } from "./simulateGradients.ts";
 describe("maximum-likelihood decoding map", () => {
   it("decoded positions scatter by σ_x = λ·CV around the true position (200 embryos), and each row is a distribution", () => {
     // Source: Tkačik et al. 2015, Genetics — in the small-noise limit the maximum-likelihood decoder's error
-    // is σ_x (Cramér–Rao bound attained); science.md §4 for σ_x = λ·CV.
+    // is σ_x (Cramér–Rao bound attained); METHODS.md §4 for σ_x = λ·CV.
     const group = exponentialGroup({ embryos: 200, lambdaUm: 80, cv: 0.1, noise: "pointwise", seed: 51 });
     const r = analysePrecision(group, { bootstrap: { resamples: 0 }, information: { extrapolate: false } });
     const map = r.decoding!;

@@ -8,7 +8,7 @@ import { exponentialGroup } from "./simulateGradients.ts";
 
 const lambdaUm = 80;
 const cv = 0.1;
-// Source: science.md §4 [derived] — exponential mean with log-normal multiplicative noise of constant
+// Source: METHODS.md §4 [derived] — exponential mean with log-normal multiplicative noise of constant
 // CV has σ_x = λ·CV exactly; σ_x = σ_c/|dc̄/dx| from Gregor, Tank, Wieschaus, Bialek 2007, Cell.
 const expectedSigmaUm = lambdaUm * cv;
 const middle = (x: number) => x >= 100 && x <= 300;
@@ -44,7 +44,7 @@ describe("positional error σ_x = σ_c/|dc̄/dx|", () => {
   });
 
   it("the bootstrap relative error of σ_x is close to 1/√(2(n−1)) for 50 embryos", () => {
-    // Source: Gregor et al. 2007, Cell / science.md §4: relative error of σ_x ≈ 1/√(2(n−1)) (normal-theory SD of an SD).
+    // Source: Gregor et al. 2007, Cell / METHODS.md §4: relative error of σ_x ≈ 1/√(2(n−1)) (normal-theory SD of an SD).
     const group = exponentialGroup({ embryos: 50, lambdaUm, cv, noise: "amplitude", seed: 5 });
     const r = analysePrecision(group, { bootstrap: { resamples: 400, seed: 6 }, decoding: { enabled: false }, information: { extrapolate: false } });
     const k = r.gridX.indexOf(200);

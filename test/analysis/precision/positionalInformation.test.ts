@@ -58,7 +58,7 @@ result = out
     );
     results.forEach((r, i) => {
       expect(Math.abs(r.direct - ref[i])).toBeLessThan(2e-4);
-      // Source: science.md §4 — on a bounded domain the small-noise value reads low by a few σ_x/L bits.
+      // Source: METHODS.md §4 — on a bounded domain the small-noise value reads low by a few σ_x/L bits.
       expect(r.direct).toBeGreaterThan(closedForm(r.sigmaX));
       expect(r.direct - closedForm(r.sigmaX)).toBeLessThan((4 * r.sigmaX) / L);
     });

@@ -19,7 +19,7 @@ export interface ExponentialGroupSpec {
 /**
  * Replicate embryos with mean profile A·e^(−x/λ) and multiplicative log-normal noise of
  * constant CV: factor e^(s·z − s²/2) with s² = ln(1 + CV²) has mean 1 and CV exactly CV,
- * so σ_c(x) = CV·c̄(x) and σ_x = λ·CV (science.md §4 [derived]; definition: Gregor et al. 2007, Cell).
+ * so σ_c(x) = CV·c̄(x) and σ_x = λ·CV (METHODS.md §4 [derived]; definition: Gregor et al. 2007, Cell).
  */
 export function exponentialGroup(spec: ExponentialGroupSpec): Profile[] {
   const random = createRandom(spec.seed);

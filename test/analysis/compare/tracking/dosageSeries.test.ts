@@ -32,7 +32,7 @@ describe("dosageSeries", () => {
     expect(r.dosages.map((d) => d.dosage)).toEqual([0.5, 1, 2, 4]);
     expect(r.lambda_fit_source).toBe("embryo_mean");
     expect(r.agree).toBe(true);
-    // Source: Δx = λ·ln 2 ≈ 0.69λ per doubling (science.md §5, from memory).
+    // Source: Δx = λ·ln 2 ≈ 0.69λ per doubling (METHODS.md §5, from memory).
     const step = r.dosages[2].boundary_um!.mean - r.dosages[1].boundary_um!.mean;
     expect(step / (85 * Math.LN2)).toBeGreaterThan(0.7);
     expect(step / (85 * Math.LN2)).toBeLessThan(1.3);

@@ -5,7 +5,7 @@ import { createRandom } from "../../../../server/analysis/random/seededRandom.ts
 
 const options = { lateFraction: 1 / 3, alpha: 0.05, steadyTolerance: 0.05 };
 
-/** λ approaching its plateau with time constant τ (s), as a gradient forms (science.md §2). */
+/** λ approaching its plateau with time constant τ (s), as a gradient forms (METHODS.md §2). */
 function approach(seed: number, spanOverTau: number) {
   const r = createRandom(seed);
   const tau = 1200;
