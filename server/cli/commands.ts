@@ -7,7 +7,8 @@ import { trackCommand } from "./trackCommand.ts";
 import { planCommand } from "./planCommand.ts";
 import { importCommand } from "./importCommand.ts";
 import { listCommand } from "./listCommand.ts";
+import { reportCommand } from "./reportCommand.ts";
 import { serveCommand } from "./serveCommand.ts";
 
 /** Every sub-command, in the order the help lists them. */
-export const COMMANDS: Command[] = [importCommand, listCommand, demoCommand, fitCommand, precisionCommand, compareCommand, trackCommand, planCommand, serveCommand];
+export const COMMANDS: Command[] = [importCommand, listCommand, demoCommand, fitCommand, precisionCommand, compareCommand, trackCommand, planCommand, reportCommand, serveCommand];

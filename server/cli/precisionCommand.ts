@@ -31,6 +31,8 @@ the slope of the mean profile, with a bootstrap band over embryos.
   --positions X,Y       also report σ_x at these positions
   --region A:B          region for positional information and mean σ_x
   --spacing S           grid spacing (µm, or fraction with relative coords)
+  --min-slope-snr S     leave out positions whose slope is below S standard errors (default 3)
+  --max-sigma-fraction F leave out σ_x above F of the grid span (default 0.25)
   --bootstrap N         resamples of whole embryos (default 1000)
   --seed N              bootstrap seed (default 1)
 ${COMMON_HELP}
@@ -51,6 +53,8 @@ With --json: one object for one group, or {"results": [...]} for several.`,
     spacing: { type: "string" },
     bootstrap: { type: "string" },
     seed: { type: "string" },
+    "min-slope-snr": { type: "string" },
+    "max-sigma-fraction": { type: "string" },
   },
   async run(values, _positionals, io) {
     if (values.threshold !== undefined && values["at-position"] !== undefined) throw new UserError("bad-option", "give either --threshold or --at-position, not both");
@@ -70,6 +74,10 @@ With --json: one object for one group, or {"results": [...]} for several.`,
       spacing: numberOption("spacing", values.spacing as string | undefined),
       bootstrap: numberOption("bootstrap", values.bootstrap as string | undefined),
       seed: numberOption("seed", values.seed as string | undefined),
+      mask: {
+        minSlopeSnr: numberOption("min-slope-snr", values["min-slope-snr"] as string | undefined),
+        maxSigmaFraction: numberOption("max-sigma-fraction", values["max-sigma-fraction"] as string | undefined),
+      },
     });
     if (!parsed.success) throw zodToUserError(parsed.error, { normalisation: "normalize", channels: "channel", atPosition: "at-position" });
     const { db } = await openCliDatabase(values.db as string | undefined, io);

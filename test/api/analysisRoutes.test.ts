@@ -94,3 +94,23 @@ describe("analysis API", () => {
     expect((await fetch(`${s.url}/api/fits/99999`)).status).toBe(404);
   });
 });
+
+describe("stored fit listing", () => {
+  it("GET /api/fits gives Akaike weights across the models stored for a profile over the same window, summing to 1", async () => {
+    const s = await startTestServer({ demo: true });
+    try {
+      const job = await awaitJob(s.url, (await postJson(`${s.url}/api/fits`, { selection: { embryo: "wt-02", channel: "glm" }, models: ["exponential", "finite", "power"], options: { window: { xMinUm: 30 } } })).body.id);
+      expect(job.status).toBe("done");
+      const fits = (await (await fetch(`${s.url}/api/fits?channel=glm`)).json()).fits;
+      const weights = fits.map((f: { akaikeWeight: number }) => f.akaikeWeight);
+      expect(weights.reduce((a: number, b: number) => a + b, 0)).toBeCloseTo(1, 12);
+      // The job's own ranking and the listing agree (same AICc values). Source: Burnham & Anderson 2002, Akaike weights.
+      for (const f of fits) {
+        const fromJob = job.result.fits.find((j: { fit_id: number }) => j.fit_id === f.fitId);
+        expect(f.akaikeWeight).toBeCloseTo(fromJob.akaike_weight, 12);
+      }
+    } finally {
+      await s.close();
+    }
+  });
+});

@@ -419,7 +419,7 @@ function noteSettings(
     warnings.add(
       "masked-positions",
       `σ_x is not reported at ${maskedCount} of ${mask.length} grid positions (flat gradient, no spread or σ_x too large)`,
-      "See mask.reason; adjust mask.minSlopeSnr or mask.maxSigmaFraction to change the rule.",
+      "See mask.reason; the masking rule (minimal slope signal-to-noise, largest σ_x as a fraction of the span) can be changed in the mask settings.",
     );
   if (!region)
     warnings.add(

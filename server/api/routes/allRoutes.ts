@@ -1,4 +1,6 @@
 import type { RouteDefinition } from "../route.ts";
+import { exportRoutes } from "./exportRoutes.ts";
+import { figureRoutes } from "./figureRoutes.ts";
 import { fitRoutes } from "./fitRoutes.ts";
 import { groupRoutes } from "./groupRoutes.ts";
 import { importRoutes } from "./importRoutes.ts";
@@ -7,4 +9,4 @@ import { precisionRoutes } from "./precisionRoutes.ts";
 import { profileRoutes } from "./profileRoutes.ts";
 
 /** Every API route, in the order the reference lists them. */
-export const ALL_ROUTES: RouteDefinition[] = [...importRoutes, ...profileRoutes, ...fitRoutes, ...precisionRoutes, ...groupRoutes, ...jobRoutes];
+export const ALL_ROUTES: RouteDefinition[] = [...importRoutes, ...profileRoutes, ...fitRoutes, ...precisionRoutes, ...groupRoutes, ...jobRoutes, ...figureRoutes, ...exportRoutes];

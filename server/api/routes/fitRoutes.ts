@@ -1,12 +1,13 @@
 import { z } from "zod";
 import { getAnalysis, listAnalyses } from "../../../db/analyses.ts";
-import { listFitItems, listFits } from "../../../db/fits.ts";
-import { loadProfiles } from "../../../db/profiles.ts";
+import { listFitItems } from "../../../db/fits.ts";
 import { steadyStateCaveat } from "../../analysis/derived.ts";
 import { FitRequest } from "../../services/fits/fitRequest.ts";
+import { fitResponse } from "../../services/fits/fitResponse.ts";
 import { prepareFitInput, storeFitOutput } from "../../services/fits/fitService.ts";
 import type { FitTaskOutput } from "../../services/fits/fitTask.ts";
 import { UserError } from "../../userError.ts";
+import { weightStoredFits } from "../../services/fits/weightStoredFits.ts";
 import { defineRoute, IdParams } from "../route.ts";
 
 export const fitRoutes = [
@@ -34,7 +35,7 @@ export const fitRoutes = [
       model: z.string().optional(),
       profileId: z.coerce.number().int().positive().optional(),
     }),
-    handler: ({ db, query }) => ({ fits: listFitItems(db, query), caveat: steadyStateCaveat }),
+    handler: ({ db, query }) => ({ fits: weightStoredFits(listFitItems(db, query)), caveat: steadyStateCaveat }),
   }),
   defineRoute({
     method: "get",
@@ -42,16 +43,7 @@ export const fitRoutes = [
     tag: "fits",
     summary: "One stored fit in full: options, parameters with SE and CI, correlations, residuals, and the profile it was fitted to",
     params: IdParams,
-    handler({ db, params }) {
-      const [fit] = listFits(db, { ids: [params.id] });
-      if (!fit) throw new UserError("unknown-fit", `No fit with id ${params.id}.`, { status: 404 });
-      const [profile] = loadProfiles(db, { profileIds: [fit.profileId] });
-      return {
-        ...fit,
-        profile: profile ? { ...profile, positionsUm: Array.from(profile.positionsUm), positionsRaw: Array.from(profile.positionsRaw), intensities: Array.from(profile.intensities) } : null,
-        caveat: steadyStateCaveat,
-      };
-    },
+    handler: ({ db, params }) => fitResponse(db, params.id),
   }),
   defineRoute({
     method: "get",

@@ -6,6 +6,8 @@ import type { CompareRequest } from "./compareRequest.ts";
 import type { CompareTaskInput } from "./compareTask.ts";
 import { gatherEmbryoRecords, type EmbryoRecords } from "./embryoRecords.ts";
 import { storedGroupExtras } from "./groupExtras.ts";
+import { comparisonEmbryoValues } from "./comparisonEmbryoValues.ts";
+import { comparisonResponse, type StoredComparison } from "./comparisonResponse.ts";
 
 export interface PreparedComparison {
   request: CompareRequest;
@@ -35,24 +37,18 @@ export function prepareComparison(db: Db, request: CompareRequest): PreparedComp
   };
 }
 
-/** Store the comparison with its inputs and settings; answer with the result and its provenance. */
+/** Store the comparison with its inputs, settings and per-embryo values; answer with the result and its provenance. */
 export function storeComparison(db: Db, prepared: PreparedComparison, result: CompareResult) {
-  const analysisId = storeAnalysis(db, {
-    kind: "comparison",
+  const stored: StoredComparison = {
+    ...result,
+    embryo_values: comparisonEmbryoValues(prepared.task.records, result),
+    fitted_now: prepared.gathered.fittedNow,
+  };
+  const analysis = {
     selection: { ...prepared.request.selection, channel: prepared.gathered.channel },
     settings: { ...prepared.request, threshold: prepared.gathered.threshold },
-    engineVersion: ENGINE_VERSION,
-    result,
-    profileIds: prepared.gathered.profileIds,
-  });
-  return {
-    analysis_id: analysisId,
-    channel: prepared.gathered.channel,
-    by: prepared.request.by,
-    metric: prepared.request.metric,
-    fit_model: prepared.gathered.fitModel,
-    boundary_threshold: prepared.gathered.threshold,
-    fitted_now: prepared.gathered.fittedNow,
-    ...result,
+    result: stored,
   };
+  const id = storeAnalysis(db, { kind: "comparison", ...analysis, engineVersion: ENGINE_VERSION, profileIds: prepared.gathered.profileIds });
+  return comparisonResponse({ id, ...analysis });
 }

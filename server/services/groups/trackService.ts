@@ -8,6 +8,9 @@ import { gatherEmbryoRecords, type EmbryoRecords } from "./embryoRecords.ts";
 import { storedGroupExtras } from "./groupExtras.ts";
 import type { PlanRequest, TrackRequest } from "./trackRequest.ts";
 import type { TrackTaskInput, TrackTaskOutput } from "./trackTask.ts";
+import { planResponse } from "./planResponse.ts";
+import { trackPoints } from "./trackPoints.ts";
+import { trackingResponse, type StoredTracking } from "./trackingResponse.ts";
 
 export interface PreparedTracking {
   request: TrackRequest;
@@ -41,16 +44,16 @@ export function prepareTracking(db: Db, request: TrackRequest): PreparedTracking
   return { request, gathered, task };
 }
 
+/** Store the tracking result with its per-embryo points and settings; answer with it and its provenance. */
 export function storeTracking(db: Db, prepared: PreparedTracking, output: TrackTaskOutput) {
-  const analysisId = storeAnalysis(db, {
-    kind: "tracking",
+  const stored: StoredTracking = { ...output, points: trackPoints(prepared.task.records, output), fitted_now: prepared.gathered.fittedNow };
+  const analysis = {
     selection: { ...prepared.request.selection, channel: prepared.gathered.channel },
     settings: { ...prepared.request, threshold: prepared.gathered.threshold },
-    engineVersion: ENGINE_VERSION,
-    result: output,
-    profileIds: prepared.gathered.profileIds,
-  });
-  return { analysis_id: analysisId, over: prepared.request.over, channel: prepared.gathered.channel, fit_model: prepared.gathered.fitModel, boundary_threshold: prepared.gathered.threshold, fitted_now: prepared.gathered.fittedNow, result: output.result };
+    result: stored,
+  };
+  const id = storeAnalysis(db, { kind: "tracking", ...analysis, engineVersion: ENGINE_VERSION, profileIds: prepared.gathered.profileIds });
+  return trackingResponse({ id, ...analysis });
 }
 
 export interface PreparedPlan {
@@ -74,13 +77,11 @@ export function preparePlan(db: Db, request: PlanRequest): PreparedPlan {
 }
 
 export function storePlan(db: Db, prepared: PreparedPlan, plan: SamplePlan) {
-  const analysisId = storeAnalysis(db, {
-    kind: "plan",
+  const analysis = {
     selection: { ...prepared.request.selection, channel: prepared.gathered?.channel ?? null, group: prepared.group },
     settings: prepared.request,
-    engineVersion: ENGINE_VERSION,
     result: plan,
-    profileIds: prepared.gathered?.profileIds ?? [],
-  });
-  return { analysis_id: analysisId, metric: prepared.request.metric, group: prepared.group, ...plan };
+  };
+  const id = storeAnalysis(db, { kind: "plan", ...analysis, engineVersion: ENGINE_VERSION, profileIds: prepared.gathered?.profileIds ?? [] });
+  return planResponse({ id, ...analysis });
 }

@@ -33,6 +33,8 @@ export const PrecisionRequest = z.object({
   bootstrap: z.number().int().min(0).max(100_000).default(1000),
   /** Seed of the bootstrap. */
   seed: z.number().int().default(1),
+  /** When a position's σ_x is left out: slope below `minSlopeSnr` standard errors, or σ_x above `maxSigmaFraction` of the grid span. */
+  mask: z.object({ minSlopeSnr: z.number().min(0).default(3), maxSigmaFraction: z.number().positive().default(0.25) }).prefault({}),
   /** Also estimate positional information with kernel densities (slow). */
   kernelDensity: z.boolean().default(false),
 });

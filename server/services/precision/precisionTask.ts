@@ -42,6 +42,7 @@ export function precisionOptions(request: PrecisionRequest, progress: ProgressCa
     flip: request.flip,
     derivative: slopeModel ? { method: "model", slopeModel } : { method: "savitzky-golay" },
     region: request.region ?? null,
+    mask: request.mask,
     positions: request.positions,
     boundary: { threshold: request.threshold ?? null, atPosition: request.atPosition ?? null },
     information: { kernelDensity: request.kernelDensity },

@@ -1,0 +1,65 @@
+import type { Estimate } from "./estimate.ts";
+
+/** One group's positional-precision summary: `results[i]` of the precision job. */
+export interface PrecisionSummary {
+  analysis_id: number;
+  group: string;
+  channel: string;
+  n_embryos: number;
+  coords: "absolute" | "relative";
+  unit: string;
+  x: number[];
+  mean_intensity: number[];
+  sd_intensity: number[];
+  /** null where σ_x is masked (flat gradient, no spread, or too large). */
+  sigma_x: (number | null)[];
+  sigma_x_ci95: ([number, number] | null)[];
+  sigma_x_expected_relative_error: number | null;
+  masked_positions: number;
+  min_sigma_x: (Estimate & { position: number; fraction_of_length: Estimate | null }) | null;
+  sigma_x_at: { position: number; value: number | null; ci95: [number, number] | null }[];
+  mean_sigma_x: Estimate | null;
+  boundary: {
+    threshold: number;
+    threshold_source: string;
+    positions: Record<string, number>;
+    never_cross: string[];
+    mean_position: number | null;
+    sd: number | null;
+    sd_ci95: [number, number] | null;
+    sd_bootstrap_ci95: [number, number] | null;
+    sigma_x_at_threshold: Estimate | null;
+    sd_over_sigma_x: number | null;
+  } | null;
+  positional_information_bits: {
+    small_noise: number | null;
+    direct: number | null;
+    direct_extrapolated: Estimate | null;
+    kernel_density: number | null;
+    ci95: { small_noise: [number, number] | null; direct: [number, number] | null; kernel_density: [number, number] | null };
+    region: { from: number; to: number; length: number; source: string } | null;
+    note: string;
+  } | null;
+  normalisation: string;
+  derivative: string;
+  warnings: { code: string; message: string; fix?: string; count?: number }[];
+  flipped: { flagged: string[]; flipped: string[] } | null;
+  outliers: { flagged: unknown[] } | null;
+  settings: { grid: { spacing: number; range: [number, number]; points: number }; bootstrap: { resamples: number; seed: number } };
+  decoding: { positions: number[]; probability: number[][]; decodedMean: (number | null)[]; decodedSd: (number | null)[]; rmsError: number | null; leaveOneOut: boolean; channels: number; embryos: number } | null;
+  /** The other channels' summaries when several were analysed together. */
+  per_channel?: PrecisionSummary[];
+  joint: {
+    channels: string[];
+    n_embryos: number;
+    x: number[];
+    sigma_x: (number | null)[];
+    min_sigma_x: { value: number; position: number; ci95: [number, number] | null } | null;
+    positional_information_bits: { small_noise: number | null; direct: number | null; ci95: { small_noise: [number, number] | null; direct: [number, number] | null } };
+    note: string;
+  } | null;
+}
+
+export interface PrecisionJobResult {
+  results: PrecisionSummary[];
+}

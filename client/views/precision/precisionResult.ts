@@ -1,0 +1,140 @@
+import { csvExportUrl } from "../../api/exportUrl.ts";
+import type { PrecisionSummary } from "../../api/types/precision.ts";
+import { chartPanel } from "../../components/chartPanel.ts";
+import { dataTable } from "../../components/dataTable.ts";
+import { el } from "../../components/el.ts";
+import { keyNumbers } from "../../components/keyNumbers.ts";
+import { infoNotice, warningNotice } from "../../components/notice.ts";
+import { boundaryFigure, decodingMapFigure, ensembleFigure, sigmaXFigure } from "../../figures/index.ts";
+import { formatEstimate, formatInterval } from "../../format/formatEstimate.ts";
+import { formatPercent } from "../../format/formatPercent.ts";
+import { formatPlain, formatSignificant } from "../../format/significant.ts";
+import { uncertaintyDecimals } from "../../format/uncertaintyDecimals.ts";
+
+const NORMALISATION_WORDS: Record<string, string> = {
+  none: "none — intensities as measured (a.u.); real amplitude differences between embryos count as noise",
+  minmax: "per embryo, minimum 0 and maximum 1 — removes real amplitude variation, so σ_x can come out smaller than without",
+  "scale-offset": "per embryo, scale and offset matched to the mean — removes real amplitude variation, so σ_x can come out smaller than without",
+};
+
+/** A length in the analysis's coordinates. */
+function lengthText(p: PrecisionSummary, x: number | null | undefined, digits = 3): string {
+  if (x === null || x === undefined) return "—";
+  return p.unit === "um" ? `${formatSignificant(x, digits)} µm` : `${formatSignificant(x, digits)} (x/L)`;
+}
+
+function bits(value: number | null | undefined, ci: [number, number] | null | undefined): string {
+  if (value === null || value === undefined) return "—";
+  const place = ci ? uncertaintyDecimals(Math.abs(ci[1] - ci[0]) / 4) : null;
+  return `${formatEstimate({ value, ci95: ci ?? null }, "bits")}${ci ? ` ${formatInterval(ci, place)}` : ""}`;
+}
+
+/** One group's positional precision: method, headline numbers, the four figures, boundaries per embryo and warnings. */
+export function precisionResult(p: PrecisionSummary): HTMLElement {
+  const lu = p.unit === "um" ? "µm" : "x/L";
+  const b = p.boundary;
+  const pi = p.positional_information_bits;
+  const source = (kind: string) => ({ kind, query: { analysis: p.analysis_id } });
+  const label = `${p.group} · ${p.channel}`;
+  const grid = p.settings.grid;
+
+  const boundaryRows = b ? Object.entries(b.positions).map(([embryo, position]) => ({ embryo, position })) : [];
+  return el(
+    "section",
+    { class: "panel precision-result", "data-group": p.group, "data-analysis-id": String(p.analysis_id) },
+    el("h2", {}, `${label} — ${p.n_embryos} embryos`),
+    infoNotice(
+      el("strong", {}, "Method. "),
+      `Positional error σ_x(x) = σ_c(x) / |dc̄/dx| across embryos. Normalisation: ${NORMALISATION_WORDS[p.normalisation] ?? p.normalisation}. `,
+      `Slope of the mean: ${p.derivative}. `,
+      `Grid: ${lengthText(p, grid.spacing)} spacing over ${lengthText(p, grid.range[0])}–${lengthText(p, grid.range[1])} (${grid.points} points). `,
+      `Bands and intervals: ${p.settings.bootstrap.resamples} bootstrap resamples of whole embryos (seed ${p.settings.bootstrap.seed}).`,
+    ),
+    keyNumbers([
+      {
+        label: `Smallest σ_x (${lu})`,
+        value: p.min_sigma_x ? formatEstimate(p.min_sigma_x, lu, { ci: true }) : "—",
+        note: p.min_sigma_x ? `at ${lengthText(p, p.min_sigma_x.position)}${p.min_sigma_x.fraction_of_length ? `; ${formatPercent(p.min_sigma_x.fraction_of_length.value, 1)} of length` : ""}` : undefined,
+        key: "min-sigma-x",
+      },
+      { label: `Mean σ_x over the region (${lu})`, value: p.mean_sigma_x ? formatEstimate(p.mean_sigma_x, lu, { ci: true }) : "—", key: "mean-sigma-x" },
+      {
+        label: "Relative error of σ_x from the number of embryos",
+        value: p.sigma_x_expected_relative_error === null ? "—" : `about ${formatPercent(p.sigma_x_expected_relative_error)}`,
+        note: "≈ 1/√(2(n−1))",
+      },
+      { label: "Positional information, small-noise", value: bits(pi?.small_noise, pi?.ci95.small_noise), key: "pi-small-noise" },
+      { label: "Positional information, direct", value: bits(pi?.direct, pi?.ci95.direct), key: "pi-direct" },
+      {
+        label: "Direct, extrapolated to infinitely many embryos",
+        value: pi?.direct_extrapolated ? formatEstimate(pi.direct_extrapolated, "bits", { ci: true }) : "—",
+        key: "pi-extrapolated",
+      },
+      ...(b
+        ? [
+            { label: `Boundary threshold (${p.normalisation === "none" ? "a.u." : "normalised"})`, value: formatPlain(b.threshold), note: b.threshold_source },
+            { label: `Boundary position, mean (${lu})`, value: lengthText(p, b.mean_position, 4) },
+            {
+              label: `Boundary SD across embryos (${lu})`,
+              value: b.sd === null ? "—" : `${formatEstimate({ value: b.sd, ci95: b.sd_ci95 }, lu, { ci: true })}`,
+              note: b.sd_bootstrap_ci95 ? `bootstrap ${formatInterval(b.sd_bootstrap_ci95, uncertaintyDecimals(Math.abs(b.sd_bootstrap_ci95[1] - b.sd_bootstrap_ci95[0]) / 4))}` : undefined,
+              key: "boundary-sd",
+            },
+            { label: `σ_x at the threshold (${lu})`, value: b.sigma_x_at_threshold ? formatEstimate(b.sigma_x_at_threshold, lu, { ci: true }) : "—", note: b.sd_over_sigma_x === null ? undefined : `boundary SD / σ_x = ${formatSignificant(b.sd_over_sigma_x, 2)}` },
+          ]
+        : []),
+      ...p.sigma_x_at.map((s) => ({ label: `σ_x at ${lengthText(p, s.position)}`, value: s.value === null ? "— (masked)" : formatEstimate({ value: s.value, ci95: s.ci95 }, lu, { ci: true }) })),
+    ]),
+    ...(p.per_channel ?? []).map((c) =>
+      el(
+        "div",
+        { class: "other-channel" },
+        el("h3", {}, `Channel ${c.channel}, same embryos`),
+        keyNumbers([
+          { label: `Smallest σ_x (${lu})`, value: c.min_sigma_x ? formatEstimate(c.min_sigma_x, lu, { ci: true }) : "—", note: c.min_sigma_x ? `at ${lengthText(c, c.min_sigma_x.position)}` : undefined },
+          { label: "Positional information, small-noise", value: bits(c.positional_information_bits?.small_noise, c.positional_information_bits?.ci95.small_noise) },
+          { label: "Positional information, direct", value: bits(c.positional_information_bits?.direct, c.positional_information_bits?.ci95.direct) },
+        ]),
+      ),
+    ),
+    p.joint
+      ? el(
+          "div",
+          { class: "joint" },
+          el("h3", {}, `Joint readout of ${p.joint.channels.join(" + ")} (${p.joint.n_embryos} embryos, correlations between channels included)`),
+          keyNumbers([
+            { label: `Smallest joint σ_x (${lu})`, value: p.joint.min_sigma_x ? formatEstimate(p.joint.min_sigma_x, lu, { ci: true }) : "—", note: p.joint.min_sigma_x ? `at ${lengthText(p, p.joint.min_sigma_x.position)}` : undefined, key: "joint-min-sigma-x" },
+            { label: "Joint positional information, small-noise", value: bits(p.joint.positional_information_bits.small_noise, p.joint.positional_information_bits.ci95.small_noise) },
+            { label: "Joint positional information, direct", value: bits(p.joint.positional_information_bits.direct, p.joint.positional_information_bits.ci95.direct) },
+          ]),
+          el("p", { class: "hint" }, p.joint.note),
+        )
+      : null,
+    pi ? el("p", { class: "hint" }, pi.region ? `Region for positional information: ${lengthText(p, pi.region.from)}–${lengthText(p, pi.region.to)} (${pi.region.source}). ` : "", pi.note) : null,
+    ...p.warnings.map((w) => warningNotice(w.message, w.fix)),
+    el(
+      "div",
+      { class: "columns" },
+      chartPanel(`${label}: mean profile ± SD`, ensembleFigure(p), source("ensemble")),
+      chartPanel(`${label}: positional error σ_x with its bootstrap band`, sigmaXFigure(p), source("sigma-x")),
+    ),
+    el(
+      "div",
+      { class: "columns" },
+      chartPanel(`${label}: boundary positions`, boundaryFigure(p), source("boundary")),
+      chartPanel(`${label}: decoding map`, decodingMapFigure(p), source("decoding-map")),
+    ),
+    el("p", {}, el("a", { class: "btn btn-secondary", href: csvExportUrl("precision", { analysis: p.analysis_id, channel: p.channel }), download: "", "data-role": "csv-precision" }, "Download σ_x(x) and the mean ± SD profile (CSV)")),
+    b
+      ? dataTable({
+          caption: `Boundary position per embryo (${lu}) at threshold ${formatPlain(b.threshold)}${b.never_cross.length ? `; never crossing: ${b.never_cross.join(", ")}` : ""}`,
+          rows: boundaryRows,
+          csv: { fileName: `boundaries-${p.group}-${p.channel}.csv` },
+          columns: [
+            { header: "Embryo", cell: (r) => r.embryo },
+            { header: `Boundary position (${lu})`, cell: (r) => formatSignificant(r.position, 4), numeric: true },
+          ],
+        })
+      : null,
+  );
+}

@@ -1,0 +1,38 @@
+import type { EmbryoRecord } from "../../analysis/compare/embryoRecord.ts";
+import { groupKey } from "../../analysis/compare/groupKey.ts";
+import { selectRecords } from "../../analysis/compare/selectRecords.ts";
+import type { TrackTaskOutput } from "./trackTask.ts";
+
+/** One embryo of a dosage series or a size-scaling analysis. */
+export interface TrackPoint {
+  embryo: string;
+  group: string;
+  dosage: number | null;
+  length_um: number | null;
+  lambda_um: number | null;
+  boundary_um: number | null;
+}
+
+const finiteOrNull = (v: number | undefined): number | null => (v !== undefined && Number.isFinite(v) ? v : null);
+
+/**
+ * The per-embryo values behind a dosage series or a size-scaling analysis,
+ * screened as the analysis screened them (selectRecords, then a positive
+ * dosage with a boundary, or a positive length). Tracking over stage or age
+ * keeps its points in its series, so it has none here.
+ */
+export function trackPoints(records: readonly EmbryoRecord[], output: TrackTaskOutput): TrackPoint[] | null {
+  if (output.over === "time") return null;
+  const { used } = selectRecords(records, output.result.settings.excludeStatuses);
+  const point = (r: EmbryoRecord, group: string): TrackPoint => ({
+    embryo: r.embryo, group, dosage: finiteOrNull(r.dosage), length_um: finiteOrNull(r.lengthUm), lambda_um: finiteOrNull(r.lambdaUm), boundary_um: finiteOrNull(r.boundaryUm),
+  });
+  if (output.over === "dosage") {
+    return used.filter((r) => r.dosage !== undefined && r.dosage > 0 && r.boundaryUm !== undefined && Number.isFinite(r.boundaryUm)).map((r) => point(r, r.group));
+  }
+  const by = output.result.settings.by;
+  return used.flatMap((r) => {
+    const key = groupKey(r, by);
+    return r.lengthUm !== undefined && r.lengthUm > 0 && key ? [point(r, key.label)] : [];
+  });
+}

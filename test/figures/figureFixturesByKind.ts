@@ -1,0 +1,10 @@
+import type { FigureKind, FigureSourceInputs } from "../../client/figures/figureRegistry.ts";
+import { FIGURE_REGISTRY } from "../../client/figures/figureRegistry.ts";
+import { comparisonInput, dosageTracking, fitInput, planInput, precisionInput } from "./figureFixtures.ts";
+
+const BY_SOURCE: FigureSourceInputs = { fit: fitInput, precision: precisionInput, comparison: comparisonInput, tracking: dosageTracking, plan: planInput };
+
+/** The hand-made input of each figure kind's source. */
+export function fixtureFor(kind: FigureKind): FigureSourceInputs[keyof FigureSourceInputs] {
+  return BY_SOURCE[FIGURE_REGISTRY[kind].source];
+}
