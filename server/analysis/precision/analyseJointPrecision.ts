@@ -217,7 +217,7 @@ export function analyseJointPrecision(channels: readonly Channel[], options: Pre
   if (settings.decoding.enabled && region) {
     progress(0.93, "decoding");
     const needed = settings.decoding.leaveOneOut ? K + 3 : K + 2;
-    if (n >= needed) decoding = decodingMap(grid.x, values, region.startIndex, region.endIndex, settings.decoding.leaveOneOut);
+    if (n >= needed) decoding = decodingMap(grid.x, values, region.startIndex, region.endIndex, settings.decoding.leaveOneOut, settings.decoding.poolPoints ?? slopes[0].windowPoints);
   }
   progress(1, "done");
   const toNull = (v: number) => (Number.isFinite(v) ? v : null);

@@ -272,7 +272,7 @@ export function runPrecision(group: readonly Profile[], settings: PrecisionSetti
   if (settings.decoding.enabled && region) {
     progress(STAGES.decoding, "decoding");
     const needed = settings.decoding.leaveOneOut ? 4 : 3;
-    if (n >= needed) decoding = decodingMap(grid.x, [values], region.startIndex, region.endIndex, settings.decoding.leaveOneOut);
+    if (n >= needed) decoding = decodingMap(grid.x, [values], region.startIndex, region.endIndex, settings.decoding.leaveOneOut, settings.decoding.poolPoints ?? slope.windowPoints);
     else warnings.add("decoding-skipped", `Decoding needs at least ${needed} embryos, got ${n}`, "Add embryos or turn off leave-one-out decoding.");
   }
 

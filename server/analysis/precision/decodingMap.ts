@@ -15,6 +15,8 @@ export interface DecodingMap {
   leaveOneOut: boolean;
   channels: number;
   embryos: number;
+  /** Grid positions over which the covariance was pooled (1: none). */
+  poolPoints: number;
 }
 
 /**
@@ -23,8 +25,14 @@ export interface DecodingMap {
  * likelihood P(c|x) = N(c; ḡ(x), C(x)), with ḡ and C estimated across embryos
  * (leaving the decoded embryo out when asked, so it is not judged by its own noise).
  * Source: Dubuis et al. 2013, PNAS; Tkačik, Dubuis, Petkova, Gregor 2015, Genetics.
- * Leave-one-out statistics by rank-one downdates: S₋ᵢ = S − n/(n−1)·d dᵀ with d = cᵢ − ḡ,
- * inverted by Sherman–Morrison and det(S₋ᵢ) = det S·(1 − n/(n−1)·dᵀS⁻¹d).
+ *
+ * `poolPoints` (odd, ≥ 1) pools the covariance over that many neighbouring grid
+ * positions (each about its own mean). With one point per position the sample
+ * covariance is noisy from position to position, and positions where it happens
+ * to be small attract decodings — stripes in the map that belong to the estimate,
+ * not to the embryo. The covariance of a gradient changes over the scale of the
+ * profile, not of the grid, so a window as wide as the slope's smoothing window
+ * removes the stripes without hiding real changes.
  * `channels[c][i][k]` is channel c, embryo i, grid point k.
  */
 export function decodingMap(
@@ -33,102 +41,104 @@ export function decodingMap(
   startIndex: number,
   endIndex: number,
   leaveOneOut: boolean,
+  poolPoints = 1,
 ): DecodingMap {
   const K = channels.length;
   const n = channels[0].length;
   if (n < (leaveOneOut ? K + 3 : K + 2))
     throw new RangeError(`decodingMap: ${n} embryos are too few to estimate a ${K}-channel covariance${leaveOneOut ? " leaving one out" : ""}`);
+  if (!Number.isInteger(poolPoints) || poolPoints < 1 || poolPoints % 2 === 0) throw new RangeError(`decodingMap: poolPoints must be an odd whole number ≥ 1, got ${poolPoints}`);
   const m = endIndex - startIndex + 1;
   const positions = Array.from({ length: m }, (_, k) => gridX[startIndex + k]);
-  // Per candidate position: mean, scatter matrix S and its inverse and log-determinant.
-  const mean: Float64Array[] = [];
-  const scatterInverse: Float64Array[] = [];
-  const logDetScatter = new Float64Array(m);
-  const usable = new Uint8Array(m);
-  for (let j = 0; j < m; j++) {
-    const k = startIndex + j;
+  const half = (poolPoints - 1) / 2;
+  const gridLength = channels[0][0].length;
+  const value = (a: number, i: number, k: number) => channels[a][i][k];
+
+  // Per grid point: mean over all embryos and the scatter matrix about it (flattened K×K).
+  const meanAt = (k: number) => {
     const mu = new Float64Array(K);
-    for (let c = 0; c < K; c++) {
-      for (let i = 0; i < n; i++) mu[c] += channels[c][i][k];
-      mu[c] /= n;
+    for (let a = 0; a < K; a++) {
+      for (let i = 0; i < n; i++) mu[a] += value(a, i, k);
+      mu[a] /= n;
     }
-    const s = Array.from({ length: K }, () => new Array<number>(K).fill(0));
-    for (let i = 0; i < n; i++)
-      for (let a = 0; a < K; a++)
-        for (let b = 0; b < K; b++) s[a][b] += (channels[a][i][k] - mu[a]) * (channels[b][i][k] - mu[b]);
-    const inv = invertSymmetric(s, 1e12);
-    mean.push(mu);
-    const flat = new Float64Array(K * K);
-    if (inv) {
-      let logDet = 0;
-      const scale = s.map((row, a) => row[a]);
-      // log det S from the unit-diagonal scaling used in the inverse: det S = Π S_aa · det(R), R the correlation matrix.
-      const r = s.map((row, a) => row.map((v, b) => v / Math.sqrt(scale[a] * scale[b])));
-      logDet = scale.reduce((acc, v) => acc + Math.log(v), 0) + Math.log(determinant(r));
-      for (let a = 0; a < K; a++) for (let b = 0; b < K; b++) flat[a * K + b] = inv.inverse[a][b];
-      logDetScatter[j] = logDet;
-      usable[j] = Number.isFinite(logDet) ? 1 : 0;
+    return mu;
+  };
+  const means = new Map<number, Float64Array>();
+  const scatters = new Map<number, Float64Array>();
+  const neighbours = (j: number) => {
+    const k = startIndex + j;
+    const out: number[] = [];
+    for (let q = Math.max(0, k - half); q <= Math.min(gridLength - 1, k + half); q++) out.push(q);
+    return out;
+  };
+  for (let j = 0; j < m; j++) {
+    for (const q of neighbours(j)) {
+      if (means.has(q)) continue;
+      const mu = meanAt(q);
+      const s = new Float64Array(K * K);
+      for (let i = 0; i < n; i++)
+        for (let a = 0; a < K; a++)
+          for (let b = 0; b < K; b++) s[a * K + b] += (value(a, i, q) - mu[a]) * (value(b, i, q) - mu[b]);
+      means.set(q, mu);
+      scatters.set(q, s);
     }
-    scatterInverse.push(flat);
   }
+
+  // The decoder's Gaussian at candidate j, built from all embryos or all but embryo i.
+  const nLeft = leaveOneOut ? n - 1 : n;
+  const factor = n / (n - 1);
+  const candidate = (j: number, i: number | null): { mu: Float64Array; inverse: number[][]; logDet: number } | null => {
+    const k = startIndex + j;
+    const mu0 = means.get(k)!;
+    const mu = new Float64Array(K);
+    for (let a = 0; a < K; a++) mu[a] = i === null ? mu0[a] : mu0[a] - (value(a, i, k) - mu0[a]) / (n - 1);
+    const pooled = Array.from({ length: K }, () => new Array<number>(K).fill(0));
+    const window = neighbours(j);
+    for (const q of window) {
+      const s = scatters.get(q)!;
+      const mq = means.get(q)!;
+      for (let a = 0; a < K; a++)
+        for (let b = 0; b < K; b++) {
+          // Removing embryo i from a scatter matrix is a rank-one downdate: S − n/(n−1)·d dᵀ.
+          const down = i === null ? 0 : factor * (value(a, i, q) - mq[a]) * (value(b, i, q) - mq[b]);
+          pooled[a][b] += s[a * K + b] - down;
+        }
+    }
+    const dof = window.length * (nLeft - 1);
+    const covariance = pooled.map((row) => row.map((v) => v / dof));
+    const inv = invertSymmetric(covariance, 1e12);
+    if (!inv) return null;
+    const diag = covariance.map((row, a) => row[a]);
+    const r = covariance.map((row, a) => row.map((v, b) => v / Math.sqrt(diag[a] * diag[b])));
+    const logDet = diag.reduce((acc, v) => acc + Math.log(v), 0) + Math.log(determinant(r));
+    return Number.isFinite(logDet) ? { mu, inverse: inv.inverse, logDet } : null;
+  };
+
   const counts = Array.from({ length: m }, () => new Float64Array(m));
   const decodedSum = new Float64Array(m);
   const decodedSquares = new Float64Array(m);
   const decodedCount = new Float64Array(m);
   let squaredError = 0;
   let decodedTotal = 0;
+  const shared = leaveOneOut ? null : Array.from({ length: m }, (_, j) => candidate(j, null));
   const c = new Float64Array(K);
-  const d = new Float64Array(K);
-  const u = new Float64Array(K);
-  const w = new Float64Array(K);
-  const nLeft = leaveOneOut ? n - 1 : n;
-  const factor = n / (n - 1);
   for (let i = 0; i < n; i++) {
+    const gaussians = shared ?? Array.from({ length: m }, (_, j) => candidate(j, i));
     for (let t = 0; t < m; t++) {
-      for (let a = 0; a < K; a++) c[a] = channels[a][i][startIndex + t];
+      for (let a = 0; a < K; a++) c[a] = value(a, i, startIndex + t);
       let best = -1;
       let bestLog = -Infinity;
       for (let j = 0; j < m; j++) {
-        if (!usable[j]) continue;
-        const mu = mean[j];
-        const p = scatterInverse[j];
-        let logDet = logDetScatter[j];
-        let quadratic: number;
-        if (leaveOneOut) {
-          // Mean and scatter without embryo i at candidate j, then the residual of c against them.
-          const k = startIndex + j;
-          for (let a = 0; a < K; a++) d[a] = channels[a][i][k] - mu[a];
-          for (let a = 0; a < K; a++) {
-            let s = 0;
-            for (let b = 0; b < K; b++) s += p[a * K + b] * d[b];
-            u[a] = s;
-          }
-          let dud = 0;
-          for (let a = 0; a < K; a++) dud += d[a] * u[a];
-          const shrink = 1 - factor * dud;
-          if (!(shrink > 1e-12)) continue;
-          logDet += Math.log(shrink);
-          // r = c − μ₋ᵢ with μ₋ᵢ = μ − d/(n−1); quadratic rᵀS₋ᵢ⁻¹r by Sherman–Morrison.
-          for (let a = 0; a < K; a++) w[a] = c[a] - (mu[a] - d[a] / (n - 1));
-          let rPr = 0;
-          let uR = 0;
-          for (let a = 0; a < K; a++) {
-            let s = 0;
-            for (let b = 0; b < K; b++) s += p[a * K + b] * w[b];
-            rPr += w[a] * s;
-            uR += u[a] * w[a];
-          }
-          quadratic = rPr + (factor * uR * uR) / shrink;
-        } else {
-          quadratic = 0;
-          for (let a = 0; a < K; a++) {
-            let s = 0;
-            for (let b = 0; b < K; b++) s += p[a * K + b] * (c[b] - mu[b]);
-            quadratic += (c[a] - mu[a]) * s;
-          }
+        const g = gaussians[j];
+        if (!g) continue;
+        let quadratic = 0;
+        for (let a = 0; a < K; a++) {
+          let s = 0;
+          for (let b = 0; b < K; b++) s += g.inverse[a][b] * (c[b] - g.mu[b]);
+          quadratic += (c[a] - g.mu[a]) * s;
         }
-        // Covariance = S/(nLeft − 1): log N = −½ log det C − ½ rᵀC⁻¹r + const.
-        const logLikelihood = -0.5 * (logDet - K * Math.log(nLeft - 1)) - 0.5 * (nLeft - 1) * quadratic;
+        // log N(c; μ, C) up to a constant: −½ log det C − ½ (c − μ)ᵀC⁻¹(c − μ).
+        const logLikelihood = -0.5 * g.logDet - 0.5 * quadratic;
         if (logLikelihood > bestLog) [bestLog, best] = [logLikelihood, j];
       }
       if (best < 0) continue;
@@ -158,6 +168,7 @@ export function decodingMap(
     leaveOneOut,
     channels: K,
     embryos: n,
+    poolPoints,
   };
 }
 

@@ -113,6 +113,11 @@ export const PrecisionOptions = z.object({
       enabled: z.boolean().default(true),
       /** Decode each embryo with statistics from the others; true by default. */
       leaveOneOut: z.boolean().default(true),
+      /**
+       * Odd number of neighbouring grid positions over which the decoder's covariance is pooled;
+       * null (default) for the slope's smoothing window; 1 for none.
+       */
+      poolPoints: z.int().min(1).nullable().default(null).refine((w) => w === null || w % 2 === 1, { message: "poolPoints must be odd" }),
     })
     .prefault({}),
   /** Per-embryo summaries supplied by the caller, e.g. { "e1": { lambdaUm: 82.1 } }; screened for outliers. */

@@ -87,3 +87,51 @@ result = (counts / n).tolist()
     expect(() => decodingMap([0, 1, 2], [[[1, 2, 3], [2, 3, 4], [3, 4, 6]]], 0, 2, true)).toThrow(/too few/);
   });
 });
+
+describe("decodingMap with a pooled covariance", () => {
+  it("pooling the variance over neighbouring positions matches a brute-force numpy recomputation", () => {
+    const random = createRandom(54);
+    const x = Array.from({ length: 21 }, (_, k) => k);
+    const values = Array.from({ length: 12 }, () => x.map((v) => 10 * Math.exp(-v / 6) * (1 + 0.15 * random.normal())));
+    const map = decodingMap(x, [values], 2, 18, true, 5);
+    // Source: numpy as reference — leave-one-out mean at the candidate, variance pooled over the
+    // candidate's ±2 neighbours (each about its own mean, ddof = 1 per position), Gaussian argmax.
+    const ref = runPython<number[][]>(
+      `
+c = np.array(data["v"]); lo, hi, h = data["lo"], data["hi"], data["h"]
+n, g = c.shape
+cand = list(range(lo, hi + 1))
+counts = np.zeros((len(cand), len(cand)))
+for i in range(n):
+    o = np.delete(c, i, axis=0)
+    mu = o.mean(axis=0)
+    ss = ((o - mu) ** 2).sum(axis=0)
+    var = np.array([ss[max(0, k - h):min(g, k + h + 1)].sum() / (len(range(max(0, k - h), min(g, k + h + 1))) * (n - 2)) for k in cand])
+    for ti, t in enumerate(cand):
+        ll = -0.5 * np.log(var) - (c[i, t] - mu[cand]) ** 2 / (2 * var)
+        counts[ti, np.argmax(ll)] += 1
+result = (counts / n).tolist()
+`,
+      { v: values, lo: 2, hi: 18, h: 2 },
+    );
+    map.probability.forEach((row, t) => row.forEach((p, d) => expect(p).toBeCloseTo(ref[t][d], 12)));
+    expect(map.poolPoints).toBe(5);
+  });
+
+  it("pooling removes attractor positions: decodings spread over more distinct positions without widening", () => {
+    // Gregor et al. 2007, Cell: for an exponential mean with constant CV the decoder's error is σ_x = λ·CV everywhere;
+    // sample noise in the per-position variance makes a few positions collect many decodings.
+    const random = createRandom(55);
+    const x = Array.from({ length: 120 }, (_, k) => k);
+    const values = Array.from({ length: 30 }, () => {
+      const a = Math.exp(0.1 * random.normal());
+      return x.map((v) => a * 100 * Math.exp(-v / 40) * (1 + 0.03 * random.normal()));
+    });
+    const heaviestColumn = (m: ReturnType<typeof decodingMap>) => Math.max(...m.positions.map((_, d) => m.probability.reduce((s, row) => s + row[d], 0)));
+    const raw = decodingMap(x, [values], 10, 100, true, 1);
+    const pooled = decodingMap(x, [values], 10, 100, true, 9);
+    expect(heaviestColumn(pooled)).toBeLessThan(heaviestColumn(raw));
+    const rms = (m: ReturnType<typeof decodingMap>) => m.rmsError as number;
+    expect(rms(pooled)).toBeLessThan(rms(raw) * 1.1);
+  });
+});
