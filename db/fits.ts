@@ -123,12 +123,24 @@ export interface FitListItem {
   status: string;
   message: string;
   lambdaUm: { value: number; se: number | null; ci95: [number, number] | null } | null;
+  amplitude: { value: number; se: number | null; ci95: [number, number] | null } | null;
+  background: { value: number; se: number | null; ci95: [number, number] | null } | null;
+  r2: number | null;
   aicc: number | null;
+  nPoints: number | null;
   window: { xMinUm?: number; xMaxUm?: number } | null;
+  options: unknown;
+  engineVersion: string;
   createdAt: string;
 }
 
-/** Fits with their embryo's labels, without the bulky arrays; newest first within each profile and model. */
+const parsed = <T>(v: unknown): T | null => (typeof v === "string" ? (JSON.parse(v) as T) : null);
+
+/**
+ * Fits with their embryo's labels and headline numbers, without the bulky
+ * arrays; by default only the newest fit of each profile and model. Ordered by
+ * genotype, embryo, channel, time and model, for tables and reports.
+ */
 export function listFitItems(db: Db, filter: FitListFilter = {}): FitListItem[] {
   const conds: string[] = [];
   const params: unknown[] = [];
@@ -141,31 +153,42 @@ export function listFitItems(db: Db, filter: FitListFilter = {}): FitListItem[] 
   }
   const rows = db
     .prepare(
-      `SELECT f.id, f.profile_id, e.label, e.genotype, p.channel, p.time_s, f.model, f.status, f.aicc, f.created_at,
+      `SELECT f.id, f.profile_id, e.label, e.genotype, p.channel, p.time_s, f.model, f.status, f.aicc, f.engine_version, f.options_json, f.created_at,
               json_extract(f.result_json, '$.fit.message') AS message,
               json_extract(f.result_json, '$.fit.parameters.lambdaUm') AS lambda,
+              json_extract(f.result_json, '$.fit.parameters.amplitude') AS amplitude,
+              json_extract(f.result_json, '$.fit.parameters.background') AS background,
+              json_extract(f.result_json, '$.fit.r2') AS r2,
+              json_extract(f.result_json, '$.fit.n') AS n,
               json_extract(f.options_json, '$.window') AS window
        FROM fits f JOIN profiles p ON p.id = f.profile_id JOIN embryos e ON e.id = p.embryo_id
        ${conds.length ? `WHERE ${conds.join(" AND ")}` : ""}
-       ORDER BY e.genotype, e.label, p.channel, f.model`,
+       ORDER BY e.genotype, e.label, p.channel, p.time_s, f.model`,
     )
     .all(...params) as Record<string, unknown>[];
-  return rows.map((r) => {
-    const lambda = r.lambda ? (JSON.parse(r.lambda as string) as { value: number; se: number | null; ci95: [number, number] | null }) : null;
-    return {
-      fitId: r.id as number,
-      profileId: r.profile_id as number,
-      embryo: r.label as string,
-      genotype: r.genotype as string,
-      channel: r.channel as string,
-      timeS: r.time_s as number | null,
-      model: r.model as string,
-      status: r.status as string,
-      message: (r.message as string | null) ?? "",
-      lambdaUm: lambda ? { value: lambda.value, se: lambda.se, ci95: lambda.ci95 } : null,
-      aicc: r.aicc as number | null,
-      window: r.window ? JSON.parse(r.window as string) : null,
-      createdAt: r.created_at as string,
-    };
-  });
+  const estimate = (v: unknown) => {
+    const e = parsed<{ value: number; se: number | null; ci95: [number, number] | null }>(v);
+    return e ? { value: e.value, se: e.se, ci95: e.ci95 } : null;
+  };
+  return rows.map((r) => ({
+    fitId: r.id as number,
+    profileId: r.profile_id as number,
+    embryo: r.label as string,
+    genotype: r.genotype as string,
+    channel: r.channel as string,
+    timeS: r.time_s as number | null,
+    model: r.model as string,
+    status: r.status as string,
+    message: (r.message as string | null) ?? "",
+    lambdaUm: estimate(r.lambda),
+    amplitude: estimate(r.amplitude),
+    background: estimate(r.background),
+    r2: r.r2 as number | null,
+    aicc: r.aicc as number | null,
+    nPoints: r.n as number | null,
+    window: parsed(r.window),
+    options: JSON.parse(r.options_json as string),
+    engineVersion: r.engine_version as string,
+    createdAt: r.created_at as string,
+  }));
 }

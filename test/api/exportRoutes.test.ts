@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { listFitTable } from "../../db/fitTable.ts";
+import { listFitItems } from "../../db/fits.ts";
 import type { ScalingResult } from "../../server/analysis/compare/tracking/sizeScaling.ts";
 import { TrackRequest } from "../../server/services/groups/trackRequest.ts";
 import { prepareTracking, storeTracking } from "../../server/services/groups/trackService.ts";
@@ -32,7 +32,7 @@ describe("GET /api/exports/:table.csv", () => {
     const { text, disposition } = await csv("/api/exports/fits.csv?genotype=wt&channel=glm");
     expect(disposition).toBe('attachment; filename="fits_wt_glm.csv"');
     const rows = readCsv(text);
-    const stored = listFitTable(s.db, { genotype: "wt", channel: "glm" });
+    const stored = listFitItems(s.db, { genotype: "wt", channel: "glm" });
     expect(rows).toHaveLength(30);
     expect(Object.keys(rows[0])).toEqual(expect.arrayContaining(["embryo", "genotype", "channel", "model", "lambda_um", "lambda_se_um", "lambda_ci95_low_um", "lambda_ci95_high_um", "status", "aicc"]));
     rows.forEach((r, i) => {

@@ -1,14 +1,14 @@
 import type { Db } from "../../../db/connection.ts";
-import { listFitTable, type FitTableFilter, type FitTableRow } from "../../../db/fitTable.ts";
+import { listFitItems, type FitListFilter, type FitListItem } from "../../../db/fits.ts";
 import type { CsvTable } from "./csvText.ts";
 
 /** The decay-length table of stored fits (newest per profile and model): λ with SE and 95% CI, fit quality and settings. */
-export function fitTable(db: Db, filter: FitTableFilter = {}): CsvTable {
-  return fitRowsTable(listFitTable(db, filter));
+export function fitTable(db: Db, filter: FitListFilter = {}): CsvTable {
+  return fitRowsTable(listFitItems(db, filter));
 }
 
 /** The decay-length table of the given fit rows. */
-export function fitRowsTable(fits: readonly FitTableRow[]): CsvTable {
+export function fitRowsTable(fits: readonly FitListItem[]): CsvTable {
   return {
     columns: [
       "fit_id", "profile_id", "embryo", "genotype", "channel", "time_s", "model", "status",

@@ -1,6 +1,6 @@
 import { getAnalysis, listAnalyses, type StoredAnalysis } from "../../../db/analyses.ts";
 import type { Db } from "../../../db/connection.ts";
-import { listFitTable, type FitTableRow } from "../../../db/fitTable.ts";
+import { listFitItems, type FitListItem } from "../../../db/fits.ts";
 import { listImports, type ImportRow } from "../../../db/imports.ts";
 import { distinctValues, listProfiles } from "../../../db/profiles.ts";
 import type { GlobalFitResult } from "../../analysis/fit/fitGlobal.ts";
@@ -44,7 +44,7 @@ export interface GroupReport {
   channel: string;
   profiles: number;
   /** Newest fit of each profile and model. */
-  fits: FitTableRow[];
+  fits: FitListItem[];
   /** Profiles this report fitted with default options because they had no fit. */
   fittedByReport: number;
   globals: GlobalFitEntry[];
@@ -80,7 +80,7 @@ function chosen(kind: string, given: string[] | undefined, stored: string[]): st
 /** Fit, with default options, every profile of the group that has no fit yet (and the group globally when none had one). */
 function fitMissing(db: Db, genotype: string, channel: string): number {
   const profiles = listProfiles(db, { genotype, channel });
-  const fitted = new Set(listFitTable(db, { genotype, channel }).map((f) => f.profileId));
+  const fitted = new Set(listFitItems(db, { genotype, channel }).map((f) => f.profileId));
   const missing = profiles.filter((p) => !fitted.has(p.profileId)).map((p) => p.profileId);
   if (missing.length === 0) return 0;
   const request = FitRequest.parse({ selection: { profileIds: missing }, models: ["exponential"], global: fitted.size === 0 });
@@ -104,7 +104,7 @@ function newestGlobals(db: Db, genotype: string, channel: string): GlobalFitEntr
   return out;
 }
 
-function exampleFit(db: Db, fits: FitTableRow[]): FitResponse | null {
+function exampleFit(db: Db, fits: FitListItem[]): FitResponse | null {
   const ok = fits.filter((f) => f.model === "exponential" && f.status === "converged" && f.lambdaUm).sort((a, b) => a.lambdaUm!.value - b.lambdaUm!.value || a.fitId - b.fitId);
   if (ok.length === 0) return null;
   return fitResponse(db, ok[Math.floor((ok.length - 1) / 2)].fitId);
@@ -158,7 +158,7 @@ export function gatherReport(db: Db, options: ReportOptions, progress: ProgressC
   const groups = pairs.map(({ genotype, channel, profiles }, i) => {
     progress(i / pairs.length, `fitting ${genotype} / ${channel}`);
     const fittedByReport = fitMissing(db, genotype, channel);
-    const fits = listFitTable(db, { genotype, channel });
+    const fits = listFitItems(db, { genotype, channel });
     progress((i + 0.4) / pairs.length, `precision ${genotype} / ${channel}`);
     return { genotype, channel, profiles: profiles.length, fits, fittedByReport, globals: newestGlobals(db, genotype, channel), example: exampleFit(db, fits), ...precisionFor(db, genotype, channel, options.bootstrap) };
   });
