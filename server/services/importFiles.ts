@@ -46,10 +46,21 @@ function importOne(db: Db, file: SourceFile, options: ResolvedImportOptions, met
       warnings: again ? [] : parsed.warnings,
       message: again
         ? `already imported${stored.originalFileName !== file.name ? ` as ${stored.originalFileName}` : ""} (import #${stored.importId}); nothing added`
-        : `${stored.profilesAdded} profile${stored.profilesAdded === 1 ? "" : "s"} from ${parsed.embryos.length} embryo${parsed.embryos.length === 1 ? "" : "s"} (${stored.embryosAdded} new)`,
+        : `${stored.profilesAdded} profile${stored.profilesAdded === 1 ? "" : "s"} from ${parsed.embryos.length} embryo${parsed.embryos.length === 1 ? "" : "s"} (${stored.embryosAdded} new)` + joinedNote(stored.embryosMatched, parsed),
     };
   } catch (e) {
     if (!isUserError(e)) throw e;
     return { file: file.name, status: "rejected", error: { code: e.code, message: e.message, issues: e.issues } };
   }
+}
+
+/**
+ * Embryos already stored under the same label are the same embryos: say so,
+ * naming the channel(s) the new profiles were added as, so that a file of the
+ * same embryos imported twice under another channel name does not go unnoticed.
+ */
+function joinedNote(matched: number, parsed: ParsedImport): string {
+  if (matched === 0) return "";
+  const channels = [...new Set(parsed.profiles.map((p) => p.channel))].map((c) => `"${c}"`).join(", ");
+  return `; ${matched} embryo${matched === 1 ? " was" : "s were"} already stored under the same label and gained profiles of channel ${channels} — if these are different embryos, delete this import and use a label prefix`;
 }

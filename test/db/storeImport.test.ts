@@ -115,3 +115,15 @@ describe("storing imports", () => {
     copy.close();
   });
 });
+
+describe("import report wording", () => {
+  it("importFiles says when a file's embryos were already stored and which channel they gained", () => {
+    const db = openDatabaseSync(":memory:");
+    importFiles(db, [{ name: "a.csv", bytes: wide(["E1", "E2"]) }], opts({ genotype: "wt", channel: "glm" }));
+    const [r] = importFiles(db, [{ name: "b.csv", bytes: wide(["E1", "E2"], 3) }], opts());
+    expect(r.status).toBe("imported");
+    if (r.status === "imported") expect(r.message).toContain('2 embryos were already stored under the same label and gained profiles of channel "signal"');
+    const [fresh] = importFiles(db, [{ name: "c.csv", bytes: wide(["E7"]) }], opts());
+    if (fresh.status === "imported") expect(fresh.message).not.toContain("already stored");
+  });
+});
