@@ -7,7 +7,7 @@ import { studentTCdf, studentTQuantile, studentTTwoSidedP } from "../../server/a
 import { runPython, relativeDifference } from "../helpers/python.ts";
 
 // Source: scipy.special and scipy.stats as the outside reference on identical inputs.
-const reference = runPython<{
+const reference = await runPython<{
   lgamma: number[]; betainc: number[]; erf: number[]; erfc: number[]; erfcx: number[];
   ncdf: number[]; nppf: number[]; tcdf: number[]; tppf: number[]; tsf2: number[];
 }>(

@@ -31,7 +31,7 @@ describe("GET /api/exports/:table.csv", () => {
   it("fits.csv lists the newest fit of each profile with λ, SE and 95% CI in µm, as stored", async () => {
     const { text, disposition } = await csv("/api/exports/fits.csv?genotype=wt&channel=glm");
     expect(disposition).toBe('attachment; filename="fits_wt_glm.csv"');
-    const rows = readCsv(text);
+    const rows = await readCsv(text);
     const stored = listFitItems(s.db, { genotype: "wt", channel: "glm" });
     expect(rows).toHaveLength(30);
     expect(Object.keys(rows[0])).toEqual(expect.arrayContaining(["embryo", "genotype", "channel", "model", "lambda_um", "lambda_se_um", "lambda_ci95_low_um", "lambda_ci95_high_um", "status", "aicc"]));
@@ -44,7 +44,7 @@ describe("GET /api/exports/:table.csv", () => {
       expect(r.status).toBe("converged");
     });
     // Python recomputes the CI half-width from the SE: it is t(0.975, n − 3)·SE (Source: least-squares CI, science.md §7; scipy.stats.t as reference).
-    const ratios = runPython<number[]>("from scipy import stats\nresult = [ (float(r['lambda_ci95_high_um']) - float(r['lambda_um'])) / (float(r['lambda_se_um']) * stats.t.ppf(0.975, int(r['n_points']) - 3)) for r in data ]", rows);
+    const ratios = await runPython<number[]>("from scipy import stats\nresult = [ (float(r['lambda_ci95_high_um']) - float(r['lambda_um'])) / (float(r['lambda_se_um']) * stats.t.ppf(0.975, int(r['n_points']) - 3)) for r in data ]", rows);
     for (const r of ratios) expect(r).toBeCloseTo(1, 8);
   });
 
@@ -52,7 +52,7 @@ describe("GET /api/exports/:table.csv", () => {
     const p = seeded.precisionGlm;
     const { text, disposition } = await csv(`/api/exports/precision.csv?analysis=${p.analysis_id}`);
     expect(disposition).toBe(`attachment; filename="precision_wt_glm_analysis${p.analysis_id}.csv"`);
-    const rows = readCsv(text);
+    const rows = await readCsv(text);
     expect(Object.keys(rows[0])).toEqual(["position_um", "mean_intensity_au", "sd_intensity_au", "sigma_x_um", "sigma_x_ci95_low_um", "sigma_x_ci95_high_um"]);
     expect(rows.map((r) => num(r.position_um))).toEqual(p.x);
     expect(rows.map((r) => num(r.sigma_x_um))).toEqual(p.sigma_x);
@@ -61,13 +61,13 @@ describe("GET /api/exports/:table.csv", () => {
   });
 
   it("precision.csv of another channel of a joint analysis is chosen with channel=", async () => {
-    const rows = readCsv((await csv(`/api/exports/precision.csv?analysis=${seeded.precisionJoint.analysis_id}&channel=vellin`)).text);
+    const rows = await readCsv((await csv(`/api/exports/precision.csv?analysis=${seeded.precisionJoint.analysis_id}&channel=vellin`)).text);
     expect(rows.map((r) => num(r.sigma_x_um))).toEqual(seeded.precisionJoint.per_channel[0].sigma_x);
   });
 
   it("comparison.csv holds each group's mean with its CI and each contrast with its p-values", async () => {
     const c = seeded.comparison;
-    const rows = readCsv((await csv(`/api/exports/comparison.csv?analysis=${c.analysis_id}`)).text);
+    const rows = await readCsv((await csv(`/api/exports/comparison.csv?analysis=${c.analysis_id}`)).text);
     const groups = rows.filter((r) => r.section === "group");
     const contrasts = rows.filter((r) => r.section === "contrast");
     expect(groups.map((r) => r.group)).toEqual(c.groups.map((g) => g.name));
@@ -77,7 +77,7 @@ describe("GET /api/exports/:table.csv", () => {
     expect(contrasts.map((r) => [r.group, r.versus])).toEqual(c.contrasts.map((k) => [k.a, k.b]));
     expect(contrasts.map((r) => num(r.p_holm))).toEqual(c.contrasts.map((k) => k.p_holm));
     // Holm's step-down adjustment recomputed in numpy (Source: Holm 1979, Scand J Stat).
-    const holm = runPython<number[]>(
+    const holm = await runPython<number[]>(
       "p = np.array([float(r['p_permutation']) for r in data]); o = np.argsort(p); m = len(p)\nadj = np.maximum.accumulate((m - np.arange(m)) * p[o]); adj = np.minimum(adj, 1)\nresult = np.empty(m); result[o] = adj\nresult = result.tolist()",
       contrasts,
     );
@@ -86,21 +86,21 @@ describe("GET /api/exports/:table.csv", () => {
 
   it("tracking.csv of a dosage series lists each embryo's boundary, whose OLS slope on ln(dosage) is λ from the shift", async () => {
     const t = seeded.tracking;
-    const rows = readCsv((await csv(`/api/exports/tracking.csv?analysis=${t.analysis_id}`)).text);
+    const rows = await readCsv((await csv(`/api/exports/tracking.csv?analysis=${t.analysis_id}`)).text);
     expect(Object.keys(rows[0])).toEqual(["group", "embryo", "dosage", "ln_dosage", "boundary_um"]);
     expect(rows).toHaveLength((t.result as { n: number }).n);
     // Source: x_b = λ·ln(A·f/θ), so the slope of x_b on ln f is λ (Driever & Nüsslein-Volhard 1988, Cell); numpy.polyfit is the reference fit.
-    const slope = runPython<number>("x = np.log([float(r['dosage']) for r in data]); y = [float(r['boundary_um']) for r in data]\nresult = float(np.polyfit(x, y, 1)[0])", rows);
+    const slope = await runPython<number>("x = np.log([float(r['dosage']) for r in data]); y = [float(r['boundary_um']) for r in data]\nresult = float(np.polyfit(x, y, 1)[0])", rows);
     expect(slope).toBeCloseTo((t.result as { lambda_from_shift_um: { value: number } }).lambda_from_shift_um.value, 8);
   });
 
   it("tracking.csv over length lists each embryo's length and λ, whose log–log OLS slope is the reported scaling exponent", async () => {
     const prepared = prepareTracking(s.db, TrackRequest.parse({ over: "length", channel: "glm", selection: { genotypes: ["wt", "tardy"] } }));
     const t = storeTracking(s.db, prepared, runTrackTask(prepared.task));
-    const rows = readCsv((await csv(`/api/exports/tracking.csv?analysis=${t.analysis_id}`)).text);
+    const rows = await readCsv((await csv(`/api/exports/tracking.csv?analysis=${t.analysis_id}`)).text);
     expect(Object.keys(rows[0])).toEqual(["group", "embryo", "length_um", "lambda_um", "boundary_um"]);
     // Source: λ ∝ L^β, so β is the slope of ln λ on ln L; numpy.polyfit is the reference fit.
-    const slopes = runPython<Record<string, number>>(
+    const slopes = await runPython<Record<string, number>>(
       "groups = sorted(set(r['group'] for r in data))\nresult = {g: float(np.polyfit(np.log([float(r['length_um']) for r in data if r['group'] == g]), np.log([float(r['lambda_um']) for r in data if r['group'] == g]), 1)[0]) for g in groups}",
       rows,
     );
@@ -111,13 +111,13 @@ describe("GET /api/exports/:table.csv", () => {
 
   it("plan.csv is the power table of the plan, named by its tests", async () => {
     const p = seeded.plan;
-    const rows = readCsv((await csv(`/api/exports/plan.csv?analysis=${p.analysis_id}`)).text);
+    const rows = await readCsv((await csv(`/api/exports/plan.csv?analysis=${p.analysis_id}`)).text);
     expect(Object.keys(rows[0])).toEqual(["n_per_group", "power_exact_pooled_t", "power_normal_approximation", "power_simulated_welch_t", "power_simulated_permutation"]);
     expect(rows.map((r) => [num(r.n_per_group), num(r.power_exact_pooled_t), num(r.power_simulated_welch_t), num(r.power_simulated_permutation)])).toEqual(
       p.table.map((r) => [r.n, r.power_analytic, r.power_simulated, r.power_permutation_simulated]),
     );
     // The exact power of the pooled t-test from the noncentral t (Cohen 1988, ch. 2); scipy.stats.nct is the reference.
-    const exact = runPython<number[]>(
+    const exact = await runPython<number[]>(
       "from scipy import stats\nd = data['d']\nresult = [float(1 - stats.nct.cdf(stats.t.ppf(0.975, 2*n - 2), 2*n - 2, d*np.sqrt(n/2)) + stats.nct.cdf(-stats.t.ppf(0.975, 2*n - 2), 2*n - 2, d*np.sqrt(n/2))) for n in data['n']]",
       { d: p.standardized_effect, n: rows.map((r) => num(r.n_per_group)) },
     );

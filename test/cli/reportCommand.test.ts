@@ -81,8 +81,8 @@ describe("morphogauge report", () => {
     }
   });
 
-  it("report's fits.csv reads back with Python's csv module and agrees with the λ ± SE the page prints", () => {
-    const rows = runPython<{ embryo: string; lambda_um: string; lambda_se_um: string }[]>("import csv, io\nresult = list(csv.DictReader(io.StringIO(data, newline='')))", readFileSync(join(out, "tables/fits.csv"), "utf8"));
+  it("report's fits.csv reads back with Python's csv module and agrees with the λ ± SE the page prints", async () => {
+    const rows = await runPython<{ embryo: string; lambda_um: string; lambda_se_um: string }[]>("import csv, io\nresult = list(csv.DictReader(io.StringIO(data, newline='')))", readFileSync(join(out, "tables/fits.csv"), "utf8"));
     expect(rows).toHaveLength(30);
     for (const r of rows) {
       // The page prints λ to the precision of its SE (formatWithError); the CSV holds the full values.

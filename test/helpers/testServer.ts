@@ -20,6 +20,10 @@ export async function startTestServer(options: { demo?: boolean; clientDir?: str
   const server: Server = await new Promise((resolve) => {
     const s = app.listen(0, "127.0.0.1", () => resolve(s));
   });
+  // An idle kept-alive socket must not be closed by the server while a test's next request is on its
+  // way: keep idle sockets longer than any pause between requests, and close them all at the end.
+  server.keepAliveTimeout = 120_000;
+  server.headersTimeout = 125_000;
   const { port } = server.address() as AddressInfo;
   return {
     url: `http://127.0.0.1:${port}`,
@@ -27,7 +31,9 @@ export async function startTestServer(options: { demo?: boolean; clientDir?: str
     logs,
     async close() {
       await app.jobs.close();
-      await new Promise((r) => server.close(r));
+      const closed = new Promise((r) => server.close(r));
+      server.closeAllConnections();
+      await closed;
       db.close();
     },
   };

@@ -51,9 +51,9 @@ describe("demo fixtures", () => {
     });
   }
 
-  it("parseProfileFile agrees with numpy.genfromtxt on the wide demo file", () => {
+  it("parseProfileFile agrees with numpy.genfromtxt on the wide demo file", async () => {
     // Source: numpy.genfromtxt as an outside CSV reader (missing cells become NaN there).
-    const ref = runPython<{ x: number[]; cols: Record<string, (number | null)[]> }>(
+    const ref = await runPython<{ x: number[]; cols: Record<string, (number | null)[]> }>(
       `
 import io
 raw = open(data["path"], encoding="utf-8-sig").read()

@@ -22,7 +22,7 @@ const values = (g: string) => base.filter((r) => r.group === g).map((r) => r.lam
 
 // Source: numpy/scipy as reference — np.mean, np.std(ddof=1), scipy.stats.sem, np.median,
 // scipy.stats.ttest_ind(equal_var=False), and scipy.stats.permutation_test on |mean difference|.
-const reference = runPython<{
+const reference = await runPython<{
   summary: Record<string, { mean: number; sd: number; sem: number; median: number }>;
   welch: Record<string, number>;
   perm: Record<string, number>;

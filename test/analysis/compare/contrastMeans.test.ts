@@ -30,11 +30,11 @@ describe("contrastMeans", () => {
     expect(coverage).toBeLessThanOrEqual(0.97);
   });
 
-  it("contrastMeans reports Welch's t and df as scipy does and Hedges' g with the sign of a − b", () => {
+  it("contrastMeans reports Welch's t and df as scipy does and Hedges' g with the sign of a − b", async () => {
     const a = [88.1, 92.4, 79.5, 101.2, 95.0, 84.7, 90.3];
     const b = [101.5, 110.2, 97.8, 105.0, 99.1, 112.6];
     // Source: scipy.stats.ttest_ind(equal_var=False) as reference.
-    const ref = runPython<{ t: number; df: number }>(
+    const ref = await runPython<{ t: number; df: number }>(
       `
 from scipy import stats
 r = stats.ttest_ind(data["a"], data["b"], equal_var=False)

@@ -8,7 +8,7 @@ const a = Array.from({ length: 25 }, () => 200 + 8 * gen.normal());
 const b = Array.from({ length: 22 }, () => 185 + 5 * gen.normal());
 const B = 20000;
 // Source: scipy.stats.bootstrap(method='BCa') of the SD ratio, resampling each group independently.
-const ref = runPython<{ ratio: number; ci: [number, number] }>(
+const ref = await runPython<{ ratio: number; ci: [number, number] }>(
   `
 from scipy import stats
 x, y = np.array(data["a"]), np.array(data["b"])

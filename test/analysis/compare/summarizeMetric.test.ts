@@ -8,7 +8,7 @@ const lambdas = Array.from({ length: 16 }, () => 90 * Math.exp(0.2 * gen.normal(
 const B = 20000;
 // Source: numpy (mean, std ddof=1, median), scipy.stats.sem, scipy.stats.variation(ddof=1) and
 // scipy.stats.bootstrap(method='BCa') as reference on the same values.
-const ref = runPython<{ mean: number; sd: number; sem: number; median: number; cv: number; ci: [number, number] }>(
+const ref = await runPython<{ mean: number; sd: number; sem: number; median: number; cv: number; ci: [number, number] }>(
   `
 from scipy import stats
 x = np.array(data)

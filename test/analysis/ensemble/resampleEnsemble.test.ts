@@ -21,11 +21,11 @@ describe("common grid and resampling", () => {
     expect(grid.range).toEqual([1, 10]);
   });
 
-  it("resampleEnsemble interpolates linearly exactly as numpy.interp", () => {
+  it("resampleEnsemble interpolates linearly exactly as numpy.interp", async () => {
     const grid = chooseGrid(profiles, { coords: "absolute", spacing: 0.7, range: [1.2, 10.3] });
     const ensemble = resampleEnsemble(profiles, grid);
     // Source: numpy.interp as reference.
-    const ref = runPython<number[][]>(
+    const ref = await runPython<number[][]>(
       `result = [np.interp(data["x"], p["positionUm"], p["intensity"]).tolist() for p in data["profiles"]]`,
       { x: Array.from(grid.x), profiles },
     );

@@ -8,7 +8,7 @@ import { relativeDifference, runPython } from "../../helpers/python.ts";
 import { positions, simulateProfile } from "./fitTestData.ts";
 
 describe("blockCovariance", () => {
-  it("equals s²(JᵀJ)⁻¹ of the full Jacobian over [λ, A₁, B₁, A₂, B₂], inverted by numpy", () => {
+  it("equals s²(JᵀJ)⁻¹ of the full Jacobian over [λ, A₁, B₁, A₂, B₂], inverted by numpy", async () => {
     // Source: numpy.linalg.inv of the explicitly assembled JᵀJ as reference (Schur complement identity).
     const random = createRandom(13);
     const xs = [positions(0, 150, 40), positions(10, 220, 55)];
@@ -18,7 +18,7 @@ describe("blockCovariance", () => {
     problem.evaluate([38], true);
     const s2 = 1.7;
     const cov = blockCovariance(problem, s2)!;
-    const ref = runPython<number[][]>(
+    const ref = await runPython<number[][]>(
       `
 l = data["lambda"]; rows = []
 for k, (x, A) in enumerate(zip(data["xs"], data["A"])):

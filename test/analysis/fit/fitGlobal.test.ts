@@ -68,14 +68,14 @@ describe("fitGlobal", () => {
     expect(relativeDifference(global.shared.x0Um.value, single.parameters.x0Um.value)).toBeLessThan(1e-9);
   });
 
-  it("matches scipy.optimize.curve_fit on the stacked model: λ to 1e-6, every SE to 1e-3", () => {
+  it("matches scipy.optimize.curve_fit on the stacked model: λ to 1e-6, every SE to 1e-3", async () => {
     // Source: scipy.optimize.curve_fit as reference, fitting [λ, A₁…A₃, B₁…B₃] to the concatenated profiles.
     const random = createRandom(77);
     const profiles = [0, 1, 2].map((k) => {
       const x = positions(5 * k, 240 + 20 * k, 70 + 15 * k);
       return { x, y: simulateProfile("exponential", x, [52], amplitudes[k], backgrounds[k], { noiseSd: 2.5, random }) };
     });
-    const ref = runPython<{ popt: number[]; perr: number[] }>(
+    const ref = await runPython<{ popt: number[]; perr: number[] }>(
       `
 from scipy.optimize import curve_fit
 xs = [np.array(p["x"]) for p in data]

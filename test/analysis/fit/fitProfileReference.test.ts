@@ -33,7 +33,7 @@ cases.push({ name: "exponential", x, y: weightedY, p0: [120, 50, 20], sigma: wei
 
 // Source: scipy.optimize.curve_fit (Levenberg–Marquardt, MINPACK) as reference on identical data,
 // analytic Jacobian, tolerances at their tightest; parameters [A, λ or x0, B], covariance scaled by s².
-const reference = runPython<{ popt: number[]; perr: number[] }[]>(
+const reference = await runPython<{ popt: number[]; perr: number[] }[]>(
   `
 from scipy.optimize import curve_fit
 def shapes(name, L):
@@ -79,14 +79,14 @@ describe("fitProfile against scipy.optimize.curve_fit on the same data", () => {
 });
 
 describe("fitProfile with a robust loss against scipy.optimize.least_squares", () => {
-  it("soft-l1 and huber fits with outliers agree with least_squares(loss=…, f_scale=…) to 1e-6", () => {
+  it("soft-l1 and huber fits with outliers agree with least_squares(loss=…, f_scale=…) to 1e-6", async () => {
     // Source: scipy.optimize.least_squares as reference; iteratively reweighted least squares
     // converges to the same M-estimate (Holland & Welsch 1977).
     const outlierRandom = createRandom(99);
     const y = simulateProfile("exponential", x, [62], 140, 18, { noiseSd: 3, random: outlierRandom });
     for (const i of [7, 40, 41, 90, 150]) y[i] += 60;
     const fScale = 4;
-    const ref = runPython<Record<string, number[]>>(
+    const ref = await runPython<Record<string, number[]>>(
       `
 from scipy.optimize import least_squares
 x = np.array(data["x"]); y = np.array(data["y"])

@@ -18,12 +18,12 @@ function block(fitBackground: boolean): SeparableBlock {
 }
 
 describe("SeparableBlock", () => {
-  it("solves amplitude and background as numpy.linalg.lstsq does on the weighted basis", () => {
+  it("solves amplitude and background as numpy.linalg.lstsq does on the weighted basis", async () => {
     // Source: numpy.linalg.lstsq as reference on [√w·g, √w] and √w·y.
     const b = block(true);
     expect(b.evaluate(sourceModel, Float64Array.of(25, 50), null)).toBe(true);
     const g = Array.from(b.basisValues);
-    const ref = runPython<{ coef: number[]; rss: number }>(
+    const ref = await runPython<{ coef: number[]; rss: number }>(
       `
 sw = np.sqrt(np.array(data["w"])); g = np.array(data["g"]); y = np.array(data["y"])
 A = np.stack([sw * g, sw], axis=1)
@@ -62,7 +62,7 @@ result = {"coef": coef, "rss": float(np.sum((sw * y - A @ coef) ** 2))}
     }
   });
 
-  it("accumulates Kaufman's JᵀJ = (P⊥T)ᵀ(P⊥T), checked by explicit projection in numpy", () => {
+  it("accumulates Kaufman's JᵀJ = (P⊥T)ᵀ(P⊥T), checked by explicit projection in numpy", async () => {
     // Source: Kaufman 1975, BIT (J = −P⊥·∂Φ/∂θ·α); numpy as reference for the projection.
     const b = block(true);
     const theta = Float64Array.of(25, 50);
@@ -70,7 +70,7 @@ result = {"coef": coef, "rss": float(np.sum((sw * y - A @ coef) ** 2))}
     b.evaluate(sourceModel, theta, free);
     const jtj = new Float64Array(4);
     b.accumulate(free, jtj, new Float64Array(2));
-    const ref = runPython<number[][]>(
+    const ref = await runPython<number[][]>(
       `
 sw = np.sqrt(np.array(data["w"])); g = np.array(data["g"]); A = data["A"]
 Phi = np.stack([sw * g, sw], axis=1)

@@ -24,7 +24,7 @@ describe("solveSeparable", () => {
     expect(relativeDifference(solution.values[0], 12)).toBeLessThan(1e-8);
   });
 
-  it("with Poisson weights reaches the Poisson maximum-likelihood fit", () => {
+  it("with Poisson weights reaches the Poisson maximum-likelihood fit", async () => {
     // Source: scipy.optimize.minimize of the Poisson negative log-likelihood Σ(μ − y ln μ) as reference;
     // reweighting by 1/μ solves the same score equations Σ(y − μ)/μ·∂μ/∂θ = 0 (McCullagh & Nelder 1989, GLMs, §2.5).
     const random = createRandom(23);
@@ -34,7 +34,7 @@ describe("solveSeparable", () => {
     const { problem, block } = setup(x, y);
     const solution = solveSeparable(problem, [35], [0.1], [2e5], FitOptions.parse({ weights: "poisson", maxReweightings: 200 }), [null]);
     expect(solution.reweightingConverged).toBe(true);
-    const ref = runPython<number[]>(
+    const ref = await runPython<number[]>(
       `
 from scipy.optimize import minimize
 x = np.array(data["x"]); y = np.array(data["y"])

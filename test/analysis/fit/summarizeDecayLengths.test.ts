@@ -8,7 +8,7 @@ import { runPython } from "../../helpers/python.ts";
 import { positions, simulateProfile } from "./fitTestData.ts";
 
 describe("summarizeDecayLengths", () => {
-  it("reports mean, SD (n − 1), median and SEM of per-embryo λ beside the global λ", () => {
+  it("reports mean, SD (n − 1), median and SEM of per-embryo λ beside the global λ", async () => {
     // Source: numpy mean/std(ddof=1)/median as reference.
     const random = createRandom(55);
     const x = positions(0, 200, 50);
@@ -19,7 +19,7 @@ describe("summarizeDecayLengths", () => {
     const global = fitGlobal(profiles, options);
     const summary = summarizeDecayLengths(fits, global);
     const values = fits.flatMap((f) => (f.ok ? [f.parameters.lambdaUm.value] : []));
-    const ref = runPython<number[]>("v = np.array(data); result = [v.mean(), v.std(ddof=1), np.median(v)]", values);
+    const ref = await runPython<number[]>("v = np.array(data); result = [v.mean(), v.std(ddof=1), np.median(v)]", values);
     expect(summary.fitted).toBe(6);
     expect(summary.failed).toBe(1);
     expect(summary.meanUm!).toBeCloseTo(ref[0], 10);

@@ -14,10 +14,10 @@ describe("boundary variability", () => {
     expect(firstCrossing(x, [5, 4, 3, 3, 3, 3], 2)).toBeNull();
   });
 
-  it("standardDeviationEstimate gives the chi-square interval s·√((n−1)/χ²) as computed with scipy.stats.chi2", () => {
+  it("standardDeviationEstimate gives the chi-square interval s·√((n−1)/χ²) as computed with scipy.stats.chi2", async () => {
     const v = [101.2, 98.7, 103.5, 99.9, 97.1, 100.4, 102.8, 96.5, 100.0, 104.1];
     // Source: scipy.stats.chi2.ppf and numpy std (ddof=1) as reference for the normal-theory interval of an SD.
-    const ref = runPython<number[]>(
+    const ref = await runPython<number[]>(
       `
 from scipy import stats
 v = np.array(data); n = len(v); s = v.std(ddof=1)

@@ -4,7 +4,7 @@ import { relativeDifference, runPython } from "../../helpers/python.ts";
 
 const cases: [number, number][] = [[0.025, 1], [0.975, 1], [0.025, 9], [0.975, 9], [0.5, 2.5], [1e-8, 4], [0.999999, 199], [0.025, 199]];
 // Source: scipy.stats.chi2 as reference.
-const reference = runPython<{ ppf: number[]; cdf: number[] }>(
+const reference = await runPython<{ ppf: number[]; cdf: number[] }>(
   `
 from scipy import stats
 result = {

@@ -21,14 +21,14 @@ describe("maximum-likelihood decoding map", () => {
     middle.forEach(([x, t]) => expect(Math.abs((map.decodedMean[t] as number) - x)).toBeLessThan(3));
   });
 
-  it("leave-one-out decoding with one channel matches a brute-force numpy recomputation", () => {
+  it("leave-one-out decoding with one channel matches a brute-force numpy recomputation", async () => {
     const random = createRandom(52);
     const x = Array.from({ length: 15 }, (_, k) => k);
     const values = Array.from({ length: 9 }, () => x.map((v) => 10 * Math.exp(-v / 5) * (1 + 0.2 * random.normal())));
     const map = decodingMap(x, [values], 0, 14, true);
     // Source: numpy as reference — mean and variance (ddof=1) of the other embryos at each candidate, Gaussian
     // log-likelihood, argmax.
-    const ref = runPython<number[][]>(
+    const ref = await runPython<number[][]>(
       `
 c = np.array(data)
 n, g = c.shape
@@ -46,7 +46,7 @@ result = (counts / n).tolist()
     map.probability.forEach((row, t) => row.forEach((p, d) => expect(p).toBeCloseTo(ref[t][d], 12)));
   });
 
-  it("leave-one-out decoding with two correlated channels matches a brute-force numpy recomputation", () => {
+  it("leave-one-out decoding with two correlated channels matches a brute-force numpy recomputation", async () => {
     const random = createRandom(53);
     const x = Array.from({ length: 12 }, (_, k) => k);
     const n = 10;
@@ -59,7 +59,7 @@ result = (counts / n).tolist()
     }
     const map = decodingMap(x, [a, b], 0, 11, true);
     // Source: numpy.linalg.slogdet and numpy.linalg.solve as reference for the bivariate Gaussian likelihood.
-    const ref = runPython<number[][]>(
+    const ref = await runPython<number[][]>(
       `
 A = np.array(data["a"]); B = np.array(data["b"])
 n, g = A.shape
@@ -89,14 +89,14 @@ result = (counts / n).tolist()
 });
 
 describe("decodingMap with a pooled covariance", () => {
-  it("pooling the variance over neighbouring positions matches a brute-force numpy recomputation", () => {
+  it("pooling the variance over neighbouring positions matches a brute-force numpy recomputation", async () => {
     const random = createRandom(54);
     const x = Array.from({ length: 21 }, (_, k) => k);
     const values = Array.from({ length: 12 }, () => x.map((v) => 10 * Math.exp(-v / 6) * (1 + 0.15 * random.normal())));
     const map = decodingMap(x, [values], 2, 18, true, 5);
     // Source: numpy as reference — leave-one-out mean at the candidate, variance pooled over the
     // candidate's ±2 neighbours (each about its own mean, ddof = 1 per position), Gaussian argmax.
-    const ref = runPython<number[][]>(
+    const ref = await runPython<number[][]>(
       `
 c = np.array(data["v"]); lo, hi, h = data["lo"], data["hi"], data["h"]
 n, g = c.shape

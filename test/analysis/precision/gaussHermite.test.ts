@@ -3,7 +3,7 @@ import { gaussHermite } from "../../../server/analysis/stats/gaussHermite.ts";
 import { runPython } from "../../helpers/python.ts";
 
 // Source: numpy.polynomial.hermite.hermgauss as reference.
-const reference = runPython<{ nodes: number[]; weights: number[] }[]>(
+const reference = await runPython<{ nodes: number[]; weights: number[] }[]>(
   `
 from numpy.polynomial.hermite import hermgauss
 result = [dict(zip(("nodes", "weights"), [a.tolist() for a in hermgauss(n)])) for n in data]

@@ -67,7 +67,7 @@ describe("joint positional error of several channels", () => {
     expect(Math.abs(mean - 1)).toBeLessThan(0.02);
   });
 
-  it("jointSigmaX matches numpy.linalg.solve for correlated channels, and ignoring the correlation gives a different answer", () => {
+  it("jointSigmaX matches numpy.linalg.solve for correlated channels, and ignoring the correlation gives a different answer", async () => {
     const covariances = [
       [[4, 1.5], [1.5, 2]],
       [[1, -0.6], [-0.6, 0.8]],
@@ -77,7 +77,7 @@ describe("joint positional error of several channels", () => {
     const two = jointSigmaX(slopes2, covariances.slice(0, 2));
     const three = jointSigmaX([[0.4], [-1.1], [0.25]], [covariances[2]]);
     // Source: numpy.linalg.solve as reference for σ_x = (g′ᵀ C⁻¹ g′)^(−1/2).
-    const ref = runPython<number[]>(
+    const ref = await runPython<number[]>(
       `
 out = []
 for C, g in data:

@@ -8,11 +8,11 @@ const samples = Array.from({ length: 80 }, () => 3 + 2 * random.normal());
 const at = [-4, 0, 2.5, 3, 6, 11];
 
 describe("kernel density", () => {
-  it("gaussianKernelDensity matches scipy.stats.gaussian_kde with the same bandwidth to 1e-12 relative", () => {
+  it("gaussianKernelDensity matches scipy.stats.gaussian_kde with the same bandwidth to 1e-12 relative", async () => {
     const h = silvermanBandwidth(samples);
     // Source: scipy.stats.gaussian_kde as reference; its kernel SD is bw_method × sample SD (ddof 1),
     // so bw_method = h / SD gives the same bandwidth.
-    const ref = runPython<{ density: number[]; iqr: number; sd: number }>(
+    const ref = await runPython<{ density: number[]; iqr: number; sd: number }>(
       `
 from scipy import stats
 s = np.array(data["samples"])

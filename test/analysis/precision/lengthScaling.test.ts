@@ -5,11 +5,11 @@ import { createRandom } from "../../../server/analysis/random/seededRandom.ts";
 import { runPython } from "../../helpers/python.ts";
 
 describe("scaling with embryo length", () => {
-  it("lengthScaling equals scipy.stats.linregress on log(value) against log(length)", () => {
+  it("lengthScaling equals scipy.stats.linregress on log(value) against log(length)", async () => {
     const lengths = [480, 505, 520, 455, 530, 498, 470];
     const lambdas = [95, 99, 108, 88, 104, 101, 90];
     // Source: scipy.stats.linregress as reference.
-    const ref = runPython<{ slope: number; stderr: number; intercept: number }>(
+    const ref = await runPython<{ slope: number; stderr: number; intercept: number }>(
       `
 from scipy import stats
 r = stats.linregress(np.log(data["L"]), np.log(data["v"]))

@@ -5,7 +5,7 @@ import { relativeDifference, runPython } from "../../helpers/python.ts";
 const z = [-9, -3.3, -1, -0.01, 0, 0.0071, 0.5, 1.96, 4.2, 7.77, 11.9, 12.5, 20, 37];
 const pairs: [number, number][] = [[-1, 1], [4, 4.001], [-6.2, -6.1], [8, 30], [-0.3, 0.2]];
 // Source: scipy.stats.norm.sf and norm.cdf differences (computed with the complementary tail) as reference.
-const reference = runPython<{ sf: number[]; interval: number[] }>(
+const reference = await runPython<{ sf: number[]; interval: number[] }>(
   `
 from scipy import stats
 result = {

@@ -55,7 +55,7 @@ describe("positional error σ_x = σ_c/|dc̄/dx|", () => {
     expect(relativeHalfWidth / r.sigmaXExpectedRelativeError).toBeLessThan(1.3);
   });
 
-  it("σ_x matches a numpy reference using np.gradient for the slope of the mean (within 0.5% over the middle)", () => {
+  it("σ_x matches a numpy reference using np.gradient for the slope of the mean (within 0.5% over the middle)", async () => {
     const group = exponentialGroup({ embryos: 60, lambdaUm, cv, noise: "amplitude", seed: 7 });
     const x = Array.from(group[0].positionUm);
     const values = group.map((p) => Float64Array.from(p.intensity));
@@ -63,7 +63,7 @@ describe("positional error σ_x = σ_c/|dc̄/dx|", () => {
     const slope = meanSlope(Float64Array.from(x), 2, values, { method: "savitzky-golay", windowPoints: null, polynomialOrder: 3 });
     const curve = positionalErrorCurve(x, moments.sd, slope.slope, slope.slopeSe, { minSlopeSnr: 3, maxSigmaFraction: 0.25 });
     // Source: numpy (mean, std with ddof=1, np.gradient) as reference on the same arrays.
-    const ref = runPython<number[]>(
+    const ref = await runPython<number[]>(
       `
 c = np.array(data["c"])
 x = np.array(data["x"])
@@ -76,7 +76,7 @@ result = (c.std(axis=0, ddof=1) / np.abs(np.gradient(c.mean(axis=0), x))).tolist
     });
   });
 
-  it("a model slope supplied by the caller is used as given: σ_x = σ_c/|model slope| exactly (numpy reference)", () => {
+  it("a model slope supplied by the caller is used as given: σ_x = σ_c/|model slope| exactly (numpy reference)", async () => {
     const group = exponentialGroup({ embryos: 40, lambdaUm, cv, noise: "pointwise", seed: 8 });
     const model = (xs: number[]) => ({
       value: xs.map((x) => 1000 * Math.exp(-x / lambdaUm)),
@@ -90,7 +90,7 @@ result = (c.std(axis=0, ddof=1) / np.abs(np.gradient(c.mean(axis=0), x))).tolist
       information: { extrapolate: false },
     });
     // Source: numpy std (ddof=1) over embryos divided by the analytic slope, as reference.
-    const ref = runPython<number[]>(
+    const ref = await runPython<number[]>(
       `
 c = np.array(data["c"]); x = np.array(data["x"])
 result = (c.std(axis=0, ddof=1) / (1000 / 80 * np.exp(-x / 80))).tolist()

@@ -29,7 +29,7 @@ describe("positional information, exact inputs", () => {
     expect(smallNoiseInformation(x, x.map(() => 4), 0, 200)).toBeCloseTo(closedForm(4), 12);
   });
 
-  it("gaussianInformation for a linear mean with constant SD matches scipy.integrate.quad of the exact mixture entropy to 2e-4 bits", () => {
+  it("gaussianInformation for a linear mean with constant SD matches scipy.integrate.quad of the exact mixture entropy to 2e-4 bits", async () => {
     const b = 0.01;
     const results = [4, 0.5, 20].map((sigmaX) => {
       const mean = x.map((v) => 5 - b * v);
@@ -38,7 +38,7 @@ describe("positional information, exact inputs", () => {
     });
     // Source: scipy.integrate.quad as reference: x uniform on [0, L], g = 5 − b·x + N(0, s²) has density
     // P(g) = [Φ((5 − g)/s) − Φ((5 − bL − g)/s)]/(bL), and I = h(g) − ½log₂(2πe s²).
-    const ref = runPython<number[]>(
+    const ref = await runPython<number[]>(
       `
 from scipy import integrate, stats
 out = []
@@ -64,13 +64,13 @@ result = out
     });
   });
 
-  it("gaussianInformation for a sigmoid mean with position-dependent SD matches a brute-force numpy/scipy.integrate.trapezoid computation to 2e-3 bits", () => {
+  it("gaussianInformation for a sigmoid mean with position-dependent SD matches a brute-force numpy/scipy.integrate.trapezoid computation to 2e-3 bits", async () => {
     const mean = x.map((v) => 1 / (1 + Math.exp((v - 200) / 30)));
     const sd = mean.map((m) => 0.03 + 0.05 * m);
     const direct = gaussianInformation(x, mean, sd, 0, 200);
     // Source: numpy + scipy.integrate.trapezoid as reference: mean and SD interpolated linearly on a 20× finer
     // x grid, P(g) = (1/L)∫N(g; μ(x), σ(x))dx and H(g) = −∫P log₂P dg on a fine g grid, H(g|x) analytic.
-    const ref = runPython<number>(
+    const ref = await runPython<number>(
       `
 from scipy import integrate, stats
 x = np.array(data["x"]); mu = np.array(data["mu"]); sd = np.array(data["sd"])
@@ -88,10 +88,10 @@ result = float(Hg - Hgx)
     expect(Math.abs(direct - ref)).toBeLessThan(2e-3);
   });
 
-  it("smallNoiseInformation uses the trapezoid rule exactly as scipy.integrate.trapezoid and agrees with scipy.integrate.simpson to 1e-3 bits", () => {
+  it("smallNoiseInformation uses the trapezoid rule exactly as scipy.integrate.trapezoid and agrees with scipy.integrate.simpson to 1e-3 bits", async () => {
     const sigma = x.map((v) => 4 + 3 * Math.sin(v / 60) ** 2);
     // Source: scipy.integrate.trapezoid and simpson on the same arrays as reference.
-    const ref = runPython<{ trapezoid: number; simpson: number }>(
+    const ref = await runPython<{ trapezoid: number; simpson: number }>(
       `
 from scipy import integrate
 x = np.array(data["x"]); s = np.array(data["s"]); L = x[-1] - x[0]
@@ -162,10 +162,10 @@ describe("positional information from simulated embryos", () => {
     expect(sampleSizeExtrapolation(12, () => 1, 3, createRandom(1)).extrapolated).not.toBeNull();
   });
 
-  it("extrapolation in 1/N removes most of the upward bias of the direct estimate from 40 embryos (mean over 20 groups)", () => {
+  it("extrapolation in 1/N removes most of the upward bias of the direct estimate from 40 embryos (mean over 20 groups)", async () => {
     // Source: Tkačik et al. 2015, Genetics — direct estimates are biased upward and the bias falls as 1/N.
     // The infinite-sample value is the exact mixture entropy (scipy.integrate.quad, as in the first test).
-    const exact = runPython<number>(
+    const exact = await runPython<number>(
       `
 from scipy import integrate, stats
 a, b, L, s = 5.0, 0.01, 400.0, 0.04

@@ -16,7 +16,7 @@ const cases: [number, number, number, number][] = [
 ];
 
 // Source: scipy.signal.savgol_filter (mode="interp", the default) and savgol_coeffs as reference.
-const reference = runPython<{ filtered: number[][]; coeffs: number[] }>(
+const reference = await runPython<{ filtered: number[][]; coeffs: number[] }>(
   `
 from scipy.signal import savgol_filter, savgol_coeffs
 y = np.array(data["y"])

@@ -3,11 +3,11 @@ import { trapezoid, trapezoidWeights } from "../../../server/analysis/stats/trap
 import { runPython } from "../../helpers/python.ts";
 
 describe("trapezoid against scipy.integrate.trapezoid", () => {
-  it("trapezoid matches scipy on uneven positions to 1e-13", () => {
+  it("trapezoid matches scipy on uneven positions to 1e-13", async () => {
     const x = [0, 0.3, 0.35, 1.2, 2, 2.05, 3.7];
     const y = x.map((v) => Math.sin(v) + v * v);
     // Source: scipy.integrate.trapezoid as reference.
-    const ref = runPython<number>(`from scipy import integrate\nresult = float(integrate.trapezoid(data["y"], data["x"]))`, { x, y });
+    const ref = await runPython<number>(`from scipy import integrate\nresult = float(integrate.trapezoid(data["y"], data["x"]))`, { x, y });
     expect(trapezoid(y, x)).toBeCloseTo(ref, 13);
   });
   it("trapezoidWeights sum to the length of the interval and reject descending positions", () => {

@@ -12,7 +12,7 @@ const groupB = Array.from({ length: 14 }, () => 55 * Math.exp(0.25 * gen.normal(
 const B = 20000;
 
 // Source: scipy.stats.bootstrap (method='BCa' and 'percentile') as reference on the same data.
-const reference = runPython<Record<string, [number, number]>>(
+const reference = await runPython<Record<string, [number, number]>>(
   `
 import numpy as np
 from scipy import stats

@@ -5,7 +5,7 @@ import { runPython, relativeDifference } from "../../helpers/python.ts";
 const cdfCases: [number, number, number][] = [[0.5, 4, 9], [1, 10, 10], [2.7, 19, 19], [0.2, 3.5, 40], [6, 2, 7]];
 const quantileCases: [number, number, number][] = [[0.025, 9, 9], [0.975, 9, 9], [0.5, 5, 12], [0.995, 29, 29], [0.01, 3, 50]];
 // Source: scipy.stats.f.cdf and scipy.stats.f.ppf as reference.
-const reference = runPython<{ cdf: number[]; ppf: number[] }>(
+const reference = await runPython<{ cdf: number[]; ppf: number[] }>(
   `
 from scipy import stats
 result = {"cdf": [float(stats.f.cdf(x, a, b)) for x, a, b in data["c"]],

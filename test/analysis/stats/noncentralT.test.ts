@@ -7,7 +7,7 @@ const grid: [number, number, number][] = [
   [2.0, 10, 1.5], [-1.0, 5, 0.7], [2.1, 38, 2.8], [0.5, 3.5, -1.2], [3.0, 60, 4.5], [-2.5, 20, -3.1], [1.98, 18, 0], [4.0, 100, 9],
 ];
 // Source: scipy.stats.nct.cdf as reference on the same (t, ν, δ).
-const reference = runPython<number[]>(
+const reference = await runPython<number[]>(
   `
 from scipy import stats
 result = [float(stats.nct.cdf(t, df, nc)) for t, df, nc in data]

@@ -11,7 +11,7 @@ const small: [number[], number[]] = [[3.1, 4.2, 2.8, 5.0], [5.5, 6.1, 4.9, 7.2, 
 // Source: scipy.stats.permutation_test as reference. Our two-sided rule counts
 // |d*| ≥ |d|, which is scipy's test of the statistic |mean(a) − mean(b)| with
 // alternative='greater' (Monte-Carlo p = (b+1)/(m+1); exact enumeration for the small case).
-const reference = runPython<{ mc: number; exact: number }>(
+const reference = await runPython<{ mc: number; exact: number }>(
   `
 import numpy as np
 from scipy import stats

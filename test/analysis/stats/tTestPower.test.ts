@@ -4,7 +4,7 @@ import { runPython } from "../../helpers/python.ts";
 
 const cases: [number, number, number][] = [[10, 1.33, 0.05], [64, 0.5, 0.05], [26, 0.8, 0.05], [5, 2, 0.01], [393, 0.2, 0.05]];
 // Source: scipy.stats.nct (sf and cdf) at the pooled-t critical value, as reference.
-const ref = runPython<number[]>(
+const ref = await runPython<number[]>(
   `
 from scipy import stats
 result = []

@@ -4,7 +4,7 @@ import { runPython } from "../../helpers/python.ts";
 
 const cases: [number, number, number][] = [[20, 1.5, 0.05], [10, 2, 0.05], [50, 1.25, 0.01], [8, 0.6, 0.1]];
 // Source: scipy.stats.f (ppf and cdf) for the two-sided F-test under the alternative, as reference.
-const ref = runPython<number[]>(
+const ref = await runPython<number[]>(
   `
 from scipy import stats
 result = []

@@ -14,7 +14,7 @@ const cases: [number[], number[]][] = [
 ];
 
 // Source: scipy.stats.ttest_ind(a, b, equal_var=False) as reference on identical arrays.
-const reference = runPython<{ t: number; df: number; p: number }[]>(
+const reference = await runPython<{ t: number; df: number; p: number }[]>(
   `
 from scipy import stats
 result = []

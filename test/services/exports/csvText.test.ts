@@ -3,7 +3,7 @@ import { csvText } from "../../../server/services/exports/csvText.ts";
 import { runPython } from "../../helpers/python.ts";
 
 describe("csvText", () => {
-  it("csvText quotes commas, quotes and line breaks so that Python's csv module reads every cell back", () => {
+  it("csvText quotes commas, quotes and line breaks so that Python's csv module reads every cell back", async () => {
     // Source: RFC 4180, section 2 (quoting rules, CRLF line ends); Python's csv module is the outside reader.
     const table = {
       columns: ["label", "lambda_um", "note"],
@@ -15,13 +15,13 @@ describe("csvText", () => {
     };
     const text = csvText(table);
     expect(text.endsWith("\r\n")).toBe(true);
-    const rows = runPython<string[][]>("import csv, io\nresult = list(csv.reader(io.StringIO(data, newline='')))", text);
+    const rows = await runPython<string[][]>("import csv, io\nresult = list(csv.reader(io.StringIO(data, newline='')))", text);
     expect(rows).toEqual([table.columns, ...table.rows.map((r) => r.map(String))]);
   });
 
-  it("csvText writes numbers in full, so a reader gets back the same double", () => {
+  it("csvText writes numbers in full, so a reader gets back the same double", async () => {
     const values = [Math.PI, 1 / 3, 123456789.123456789, 2.2250738585072014e-308];
-    const read = runPython<number[]>("import csv, io\nresult = [float(v) for v in list(csv.reader(io.StringIO(data)))[1]]", csvText({ columns: ["a", "b", "c", "d"], rows: [values] }));
+    const read = await runPython<number[]>("import csv, io\nresult = [float(v) for v in list(csv.reader(io.StringIO(data)))[1]]", csvText({ columns: ["a", "b", "c", "d"], rows: [values] }));
     expect(read).toEqual(values);
   });
 

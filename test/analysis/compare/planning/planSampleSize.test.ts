@@ -4,7 +4,7 @@ import { runPython } from "../../../helpers/python.ts";
 
 // Source: scipy.stats.norm.ppf for the normal-approximation formula and scipy.stats.nct / scipy.stats.f
 // for the smallest n whose exact power reaches the target, as reference.
-const ref = runPython<{ normal: number; tN: number; spreadNormal: number; fN: number }>(
+const ref = await runPython<{ normal: number; tN: number; spreadNormal: number; fN: number }>(
   `
 from scipy import stats
 za, zb = stats.norm.ppf(0.975), stats.norm.ppf(0.8)

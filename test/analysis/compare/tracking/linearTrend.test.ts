@@ -8,7 +8,7 @@ const t = Array.from({ length: 23 }, (_, i) => 1800 + 240 * i + 60 * gen.uniform
 const y = t.map((v) => 60 + 0.004 * v + 3 * gen.normal());
 
 // Source: scipy.stats.linregress, with CIs value ± t.ppf((1+level)/2, n−2)·SE.
-const ref = runPython<{ slope: number; intercept: number; se: number; seI: number; p: number; r2: number; ci90: [number, number]; ci95: [number, number] }>(
+const ref = await runPython<{ slope: number; intercept: number; se: number; seI: number; p: number; r2: number; ci90: [number, number]; ci95: [number, number] }>(
   `
 from scipy import stats
 r = stats.linregress(data["t"], data["y"])

@@ -14,7 +14,7 @@ function simulate(seed: number, n: number, t0: number, t1: number, yInf: number,
 const data = simulate(1, 40, 0, 7200, 110, 45, 1500, 4);
 // Source: scipy.optimize.curve_fit (covariance s²(JᵀJ)⁻¹, absolute_sigma=False) as reference,
 // with tolerances tightened so that its optimum is resolved beyond the checked digits.
-const ref = runPython<{ p: number[]; se: number[] }>(
+const ref = await runPython<{ p: number[]; se: number[] }>(
   `
 from scipy.optimize import curve_fit
 f = lambda t, yinf, y0, tau: yinf - (yinf - y0) * np.exp(-t / tau)

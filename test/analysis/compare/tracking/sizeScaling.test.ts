@@ -16,7 +16,7 @@ records.push({ embryo: "nolength", group: "fixed", lambdaUm: 90, converged: true
 const pick = (g: string) => records.filter((r) => r.group === g && r.lengthUm !== undefined);
 
 // Source: scipy.stats.linregress on ln λ against ln L.
-const ref = runPython<Record<string, { slope: number; se: number }>>(
+const ref = await runPython<Record<string, { slope: number; se: number }>>(
   `
 from scipy import stats
 result = {}

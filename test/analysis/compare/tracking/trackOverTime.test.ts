@@ -16,7 +16,7 @@ for (let i = 0; i < 12; i++) records.push({ embryo: `st-${i}`, group: "staged", 
 const wt = records.filter((r) => r.group === "wt" && r.converged && r.ageS !== undefined);
 
 // Source: numpy means per half-open bin and scipy.stats.linregress on the same points.
-const ref = runPython<{ means: number[]; counts: number[]; slope: number; se: number }>(
+const ref = await runPython<{ means: number[]; counts: number[]; slope: number; se: number }>(
   `
 from scipy import stats
 t, y = np.array(data["t"]), np.array(data["y"])
