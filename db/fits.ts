@@ -12,6 +12,8 @@ export interface FitToStore {
   lambdaSeUm: number | null;
   aicc: number | null;
   result: unknown;
+  /** The fit setting the fit belongs to (db/fitSettings.ts). */
+  settingId: number;
 }
 
 export interface StoredFit {
@@ -27,6 +29,8 @@ export interface StoredFit {
   aicc: number | null;
   result: unknown;
   createdAt: string;
+  /** null only for fits stored before fit settings existed, until settings are next read. */
+  settingId: number | null;
 }
 
 /**
@@ -36,12 +40,12 @@ export interface StoredFit {
  */
 export function storeFits(db: Db, fits: FitToStore[], now: () => Date = () => new Date()): number[] {
   const upsert = db.prepare(
-    `INSERT INTO fits (profile_id, model, options_hash, options_json, engine_version, status, lambda_um, lambda_se_um, aicc, result_json, created_at)
-     VALUES (@profileId, @model, @optionsHash, @options, @engineVersion, @status, @lambdaUm, @lambdaSeUm, @aicc, @result, @createdAt)
+    `INSERT INTO fits (profile_id, model, options_hash, options_json, engine_version, status, lambda_um, lambda_se_um, aicc, result_json, created_at, setting_id)
+     VALUES (@profileId, @model, @optionsHash, @options, @engineVersion, @status, @lambdaUm, @lambdaSeUm, @aicc, @result, @createdAt, @settingId)
      ON CONFLICT (profile_id, model, options_hash) DO UPDATE SET
        options_json = excluded.options_json, engine_version = excluded.engine_version, status = excluded.status,
        lambda_um = excluded.lambda_um, lambda_se_um = excluded.lambda_se_um, aicc = excluded.aicc,
-       result_json = excluded.result_json, created_at = excluded.created_at
+       result_json = excluded.result_json, created_at = excluded.created_at, setting_id = excluded.setting_id
      RETURNING id`,
   );
   return db.transaction(() =>
@@ -65,6 +69,7 @@ export interface FitFilter {
   model?: string;
   optionsHash?: string;
   ids?: number[];
+  settingId?: number;
 }
 
 function toStored(r: Record<string, unknown>): StoredFit {
@@ -81,6 +86,7 @@ function toStored(r: Record<string, unknown>): StoredFit {
     aicc: r.aicc as number | null,
     result: JSON.parse(r.result_json as string),
     createdAt: r.created_at as string,
+    settingId: (r.setting_id as number | null) ?? null,
   };
 }
 
@@ -97,6 +103,7 @@ export function listFits(db: Db, filter: FitFilter = {}): StoredFit[] {
   }
   if (filter.model !== undefined) { conds.push("model = ?"); params.push(filter.model); }
   if (filter.optionsHash !== undefined) { conds.push("options_hash = ?"); params.push(filter.optionsHash); }
+  if (filter.settingId !== undefined) { conds.push("setting_id = ?"); params.push(filter.settingId); }
   const where = conds.length ? `WHERE ${conds.join(" AND ")}` : "";
   return (db.prepare(`SELECT * FROM fits ${where} ORDER BY profile_id, model, created_at DESC`).all(...params) as Record<string, unknown>[]).map(toStored);
 }
@@ -108,6 +115,8 @@ export interface FitListFilter {
   channel?: string;
   model?: string;
   profileId?: number;
+  /** Only fits of this named fit setting. */
+  setting?: string;
   /** Only the newest fit of each profile and model (default true). */
   latestOnly?: boolean;
 }
@@ -132,6 +141,8 @@ export interface FitListItem {
   options: unknown;
   engineVersion: string;
   createdAt: string;
+  /** Name of the fit setting the fit belongs to. */
+  setting: string | null;
 }
 
 const parsed = <T>(v: unknown): T | null => (typeof v === "string" ? (JSON.parse(v) as T) : null);
@@ -148,6 +159,7 @@ export function listFitItems(db: Db, filter: FitListFilter = {}): FitListItem[] 
   if (filter.channel !== undefined) { conds.push("p.channel = ?"); params.push(filter.channel); }
   if (filter.model !== undefined) { conds.push("f.model = ?"); params.push(filter.model); }
   if (filter.profileId !== undefined) { conds.push("f.profile_id = ?"); params.push(filter.profileId); }
+  if (filter.setting !== undefined) { conds.push("s.name = ?"); params.push(filter.setting); }
   if (filter.latestOnly ?? true) {
     conds.push("f.id = (SELECT f2.id FROM fits f2 WHERE f2.profile_id = f.profile_id AND f2.model = f.model ORDER BY f2.created_at DESC, f2.id DESC LIMIT 1)");
   }
@@ -160,8 +172,8 @@ export function listFitItems(db: Db, filter: FitListFilter = {}): FitListItem[] 
               json_extract(f.result_json, '$.fit.parameters.background') AS background,
               json_extract(f.result_json, '$.fit.r2') AS r2,
               json_extract(f.result_json, '$.fit.n') AS n,
-              json_extract(f.options_json, '$.window') AS window
-       FROM fits f JOIN profiles p ON p.id = f.profile_id JOIN embryos e ON e.id = p.embryo_id
+              json_extract(f.options_json, '$.window') AS window, s.name AS setting_name
+       FROM fits f JOIN profiles p ON p.id = f.profile_id JOIN embryos e ON e.id = p.embryo_id LEFT JOIN fit_settings s ON s.id = f.setting_id
        ${conds.length ? `WHERE ${conds.join(" AND ")}` : ""}
        ORDER BY e.genotype, e.label, p.channel, p.time_s, f.model`,
     )
@@ -190,5 +202,6 @@ export function listFitItems(db: Db, filter: FitListFilter = {}): FitListItem[] 
     options: JSON.parse(r.options_json as string),
     engineVersion: r.engine_version as string,
     createdAt: r.created_at as string,
+    setting: (r.setting_name as string | null) ?? null,
   }));
 }

@@ -11,6 +11,12 @@ export const FitRequest = z.object({
   models: z.array(z.enum([...modelNames, "all"])).min(1).default(["exponential"]),
   /** Fit options shared by every model (window, fixed parameters, weights, background, robust loss). */
   options: z.record(z.string(), z.unknown()).default({}),
+  /**
+   * Name for the fit setting these fits belong to (model plus options), e.g.
+   * "posterior-window"; NAME-model for each model when several are fitted.
+   * Without it, an existing setting keeps its name and a new one gets a readable generated name.
+   */
+  as: z.string().trim().min(1).max(48).optional(),
   /** Also fit each genotype × channel group globally: one shared λ, per-embryo amplitude and background. */
   global: z.boolean().default(false),
   /** An independently measured D (e.g. FRAP) in µm²/s with its standard error, for k, half-life, flux and τ(x). */

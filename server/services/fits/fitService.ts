@@ -8,6 +8,7 @@ import { UserError } from "../../userError.ts";
 import { ENGINE_VERSION } from "../../version.ts";
 import { describeSelection, selectionFilter } from "../selection.ts";
 import { resolveFitOptions, resolveModels, type FitRequest } from "./fitRequest.ts";
+import { fitSettingSummary, planFitSettings, storePlannedSetting, type FitSettingSummary } from "./fitSettings.ts";
 import type { FitTaskInput, FitTaskOutput } from "./fitTask.ts";
 
 /** Read the selected profiles and resolve the options: the input of a fit task. */
@@ -33,6 +34,7 @@ export function prepareFitInput(db: Db, request: FitRequest): FitTaskInput {
     global: request.global,
     diffusion: request.diffusion ?? null,
     accumulationPositionsUm: request.accumulationPositionsUm,
+    settings: planFitSettings(db, options, request.as),
   };
 }
 
@@ -44,6 +46,8 @@ export interface EstimateJson {
 
 export interface FitSummary {
   fit_id: number;
+  /** Name of the fit setting the fit belongs to. */
+  setting: string;
   profile_id: number;
   embryo: string;
   genotype: string;
@@ -84,6 +88,8 @@ export interface FitRunResult {
   fits: FitSummary[];
   global: GlobalSummary[];
   /** Per group, the models ranked by AICc of the global fits. */
+  /** Per model, the named fit setting the fits were stored under. */
+  settings: (FitSettingSummary & { renamed: boolean })[];
   group_model_comparison: { genotype: string; channel: string; best: string | null; indistinguishable: boolean; message: string; ranking: { model: string; aicc: number; deltaAicc: number; weight: number }[] }[];
   caveat: string;
 }
@@ -93,6 +99,8 @@ const est = (p: ParameterEstimate | undefined): EstimateJson | null => (p ? { va
 /** Store the fits (replacing those with identical options) and global fits, and answer with their summaries. */
 export function storeFitOutput(db: Db, input: FitTaskInput, output: FitTaskOutput): FitRunResult {
   const meta = new Map(input.profiles.map((p) => [p.profileId, p]));
+  const planned = input.settings ?? planFitSettings(db, input.options, undefined);
+  const settings = Object.fromEntries(input.models.map((m) => [m, storePlannedSetting(db, planned[m], input.options[m])]));
   const ids = storeFits(
     db,
     output.fits.map((f) => ({
@@ -105,6 +113,7 @@ export function storeFitOutput(db: Db, input: FitTaskInput, output: FitTaskOutpu
       lambdaSeUm: f.fit.ok ? (f.fit.parameters.lambdaUm?.se ?? null) : null,
       aicc: f.fit.ok ? f.fit.aicc : null,
       result: { fit: f.fit, interpretation: f.interpretation, profile: { embryo: meta.get(f.profileId)!.embryo, genotype: meta.get(f.profileId)!.genotype, channel: meta.get(f.profileId)!.channel } },
+      settingId: settings[f.model].id,
     })),
   );
   const weightOf = (profileId: number, model: string) =>
@@ -123,6 +132,7 @@ export function storeFitOutput(db: Db, input: FitTaskInput, output: FitTaskOutpu
     }
     return {
       fit_id: ids[i],
+      setting: settings[f.model].name,
       profile_id: f.profileId,
       embryo: p.embryo,
       genotype: p.genotype,
@@ -181,6 +191,7 @@ export function storeFitOutput(db: Db, input: FitTaskInput, output: FitTaskOutpu
   return {
     fits,
     global,
+    settings: input.models.map((m) => ({ ...fitSettingSummary(settings[m]), renamed: planned[m].rename })),
     group_model_comparison: output.groupComparisons.map((c) => ({ genotype: c.genotype, channel: c.channel, ...c.comparison })),
     caveat: steadyStateCaveat,
   };

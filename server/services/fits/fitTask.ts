@@ -25,6 +25,8 @@ export interface FitTaskInput {
   global: boolean;
   diffusion: DiffusionMeasurement | null;
   accumulationPositionsUm: number[];
+  /** Per model, the fit setting its fits are stored under (planned before fitting; see fitSettings.ts). */
+  settings?: Record<string, { name: string; hash: string; rename: boolean }>;
 }
 
 export interface ProfileFitOutput {

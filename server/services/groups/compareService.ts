@@ -8,6 +8,7 @@ import { gatherEmbryoRecords, type EmbryoRecords } from "./embryoRecords.ts";
 import { storedGroupExtras } from "./groupExtras.ts";
 import { comparisonEmbryoValues } from "./comparisonEmbryoValues.ts";
 import { comparisonResponse, type StoredComparison } from "./comparisonResponse.ts";
+import { analysisInputs, inputSettings } from "./analysisInputs.ts";
 
 export interface PreparedComparison {
   request: CompareRequest;
@@ -18,7 +19,7 @@ export interface PreparedComparison {
 export function prepareComparison(db: Db, request: CompareRequest): PreparedComparison {
   const reference = request.reference ? { field: request.by, value: request.reference } : undefined;
   const { records, ...gathered } = gatherEmbryoRecords(db, request, reference);
-  const extras = request.by === "genotype" ? storedGroupExtras(db, gathered.channel, request.fitModel) : {};
+  const extras = request.by === "genotype" ? storedGroupExtras(db, gathered.channel, gathered.fitSetting.hash) : {};
   return {
     request,
     gathered,
@@ -42,11 +43,11 @@ export function storeComparison(db: Db, prepared: PreparedComparison, result: Co
   const stored: StoredComparison = {
     ...result,
     embryo_values: comparisonEmbryoValues(prepared.task.records, result),
-    fitted_now: prepared.gathered.fittedNow,
+    inputs: analysisInputs(prepared.gathered),
   };
   const analysis = {
     selection: { ...prepared.request.selection, channel: prepared.gathered.channel },
-    settings: { ...prepared.request, threshold: prepared.gathered.threshold },
+    settings: { ...prepared.request, threshold: prepared.gathered.threshold, ...inputSettings(prepared.gathered) },
     result: stored,
   };
   const id = storeAnalysis(db, { kind: "comparison", ...analysis, engineVersion: ENGINE_VERSION, profileIds: prepared.gathered.profileIds });

@@ -1,11 +1,11 @@
 import type { Db } from "../../../db/connection.ts";
-import { listFits } from "../../../db/fits.ts";
 import { distinctValues, loadProfiles, type ProfileData } from "../../../db/profiles.ts";
 import { boundaryPosition, defaultBoundaryThreshold } from "../../analysis/compare/boundaryPosition.ts";
 import type { EmbryoRecord } from "../../analysis/compare/embryoRecord.ts";
-import { FitOptions } from "../../analysis/fit/fitOptions.ts";
-import { runFitTask } from "../fits/fitTask.ts";
-import { storeFitOutput } from "../fits/fitService.ts";
+import type { FitSettingSummary } from "../fits/fitSettings.ts";
+import { applyExclusions, type LeftOut } from "../exclusions/exclusionService.ts";
+import { givenGroupFits, resolveGroupFits, type GroupFits } from "./groupFits.ts";
+import type { ModelPreference } from "./modelPreference.ts";
 import { UserError } from "../../userError.ts";
 import { describeSelection, selectionFilter } from "../selection.ts";
 import type { RecordsRequest } from "./recordsRequest.ts";
@@ -15,9 +15,17 @@ export interface EmbryoRecords {
   records: EmbryoRecord[];
   profileIds: number[];
   threshold: { value: number; source: string };
-  /** Profiles that had no stored fit of the model and were fitted now with default options. */
+  /** Profiles that had no fit under the setting and were fitted now with it. */
   fittedNow: number;
-  fitModel: string;
+  /** The one fit setting every group's values come from, and how it was chosen. */
+  fitSetting: FitSettingSummary;
+  fitSettingChosen: string;
+  /** The fit used for each profile, in the order of profileIds. */
+  fitIds: number[];
+  /** Embryos and profiles left out by an exclusion, with the reasons. */
+  leftOut: LeftOut[];
+  /** Which model AICc prefers per group (null when the fits were given by id). */
+  modelPreference: ModelPreference | null;
 }
 
 /** Stage labels such as "S10" or "cycle 14" are compared as numbers when they carry one. */
@@ -28,40 +36,41 @@ function stageValue(stage: string | null): number | string | undefined {
 }
 
 /**
- * Per-embryo values for group statistics: the newest fit of each selected
- * profile (fitting, with default options, any profile that has none yet),
+ * Per-embryo values for group statistics: each selected profile's fit under
+ * one fit setting (fitting, with that setting, any profile that has none yet),
  * the boundary position at a common threshold read from the data, and the
- * embryo's metadata.
+ * embryo's metadata. Excluded embryos are left out and listed; with fitIds,
+ * exactly the given fits are used.
  */
 export function gatherEmbryoRecords(db: Db, request: RecordsRequest, referenceGroup?: { field: string; value: string }): EmbryoRecords {
-  const stored = distinctValues(db, "channel");
-  const channel = request.channel ?? (stored.length === 1 ? stored[0] : null);
-  if (channel === null) throw new UserError("choose-channel", `Several channels are stored (${stored.join(", ")}); choose one with channel.`, { status: 400 });
-  const profiles = loadProfiles(db, { ...selectionFilter(request.selection), channel }).filter((p) => p.timeS === null);
-  if (profiles.length === 0) throw new UserError("nothing-selected", `No stored profiles of channel "${channel}" match ${describeSelection(request.selection)}.`, { status: 404 });
-
-  const latest = new Map<number, ReturnType<typeof listFits>[number]>();
-  for (const f of listFits(db, { profileIds: profiles.map((p) => p.profileId), model: request.fitModel })) {
-    const prev = latest.get(f.profileId);
-    if (!prev || f.createdAt > prev.createdAt || (f.createdAt === prev.createdAt && f.id > prev.id)) latest.set(f.profileId, f);
-  }
-  const missing = profiles.filter((p) => !latest.has(p.profileId));
-  if (missing.length > 0) {
-    const input = {
-      profiles: missing.map((p) => ({ profileId: p.profileId, embryo: p.embryo, genotype: p.genotype, channel: p.channel, timeS: p.timeS, x: p.positionsUm, y: p.intensities, lengthUm: p.lengthUm })),
-      models: [request.fitModel],
-      options: { [request.fitModel]: FitOptions.parse({ model: request.fitModel }) },
-      global: false,
-      diffusion: null,
-      accumulationPositionsUm: [],
-    };
-    storeFitOutput(db, input, runFitTask(input));
-    for (const f of listFits(db, { profileIds: missing.map((p) => p.profileId), model: request.fitModel })) latest.set(f.profileId, f);
+  let profiles: ProfileData[];
+  let channel: string;
+  let leftOut: LeftOut[] = [];
+  let fits: Pick<GroupFits, "setting" | "fitByProfile"> & Partial<GroupFits>;
+  if (request.fitIds) {
+    fits = givenGroupFits(db, request.fitIds);
+    profiles = loadProfiles(db, { profileIds: [...fits.fitByProfile.keys()] });
+    const channels = [...new Set(profiles.map((p) => p.channel))];
+    if (channels.length !== 1 || profiles.some((p) => p.timeS !== null)) throw new UserError("mixed-fit-ids", "The given fits must be of steady-state profiles of one channel.", { status: 422, issues: [{ path: "fitIds", message: "several channels or time points" }] });
+    channel = channels[0];
+    if (request.channel !== undefined && request.channel !== channel) throw new UserError("mixed-fit-ids", `The given fits are of channel "${channel}", not "${request.channel}".`, { status: 422 });
+  } else {
+    const stored = distinctValues(db, "channel");
+    const chosen = request.channel ?? (stored.length === 1 ? stored[0] : null);
+    if (chosen === null) throw new UserError("choose-channel", `Several channels are stored (${stored.join(", ")}); choose one with channel.`, { status: 400 });
+    channel = chosen;
+    const selected = loadProfiles(db, { ...selectionFilter(request.selection), channel }).filter((p) => p.timeS === null);
+    if (selected.length === 0) throw new UserError("nothing-selected", `No stored profiles of channel "${channel}" match ${describeSelection(request.selection)}.`, { status: 404 });
+    const split = applyExclusions(db, selected, request.includeExcluded);
+    profiles = split.kept;
+    leftOut = split.leftOut;
+    if (profiles.length === 0) throw new UserError("all-excluded", `Every selected profile of channel "${channel}" is excluded (${leftOut.map((l) => `${l.embryo}: ${l.reason}`).join("; ")}).`, { status: 422 });
+    fits = resolveGroupFits(db, profiles, { fits: request.fits, fitModel: request.fitModel });
   }
 
   const threshold = resolveThreshold(profiles, request.threshold, referenceGroup);
   const records: EmbryoRecord[] = profiles.map((p) => {
-    const fit = latest.get(p.profileId)!;
+    const fit = fits.fitByProfile.get(p.profileId)!;
     const r = fit.result as { fit: { ok: boolean; parameters?: Record<string, { value: number; se: number | null }> } };
     const params = r.fit.ok ? r.fit.parameters! : {};
     const boundary = boundaryPosition(p.positionsUm, p.intensities, threshold.value);
@@ -88,7 +97,18 @@ export function gatherEmbryoRecords(db: Db, request: RecordsRequest, referenceGr
       metadata: p.metadata,
     };
   });
-  return { channel, records, profileIds: profiles.map((p) => p.profileId), threshold, fittedNow: missing.length, fitModel: request.fitModel };
+  return {
+    channel,
+    records,
+    profileIds: profiles.map((p) => p.profileId),
+    threshold,
+    fittedNow: fits.fittedNow ?? 0,
+    fitSetting: fits.setting,
+    fitSettingChosen: fits.chosen ?? "given as fit ids",
+    fitIds: profiles.map((p) => fits.fitByProfile.get(p.profileId)!.id),
+    leftOut,
+    modelPreference: fits.preference ?? null,
+  };
 }
 
 function resolveThreshold(profiles: ProfileData[], given: number | undefined, reference?: { field: string; value: string }): { value: number; source: string } {

@@ -1,18 +1,19 @@
 import { getAnalysis, listAnalyses } from "../../../db/analyses.ts";
 import type { Db } from "../../../db/connection.ts";
+import { fitSettingHash } from "../../../db/fitSettings.ts";
 import type { GroupExtras } from "../../analysis/compare/compareOptions.ts";
 
 /**
  * Results of earlier group analyses that a comparison can use, per genotype:
- * the newest global fit's λ (same channel and model) and the newest absolute-
+ * the newest global fit's λ (same channel and fit setting) and the newest absolute-
  * coordinate precision analysis's minimal σ_x.
  */
-export function storedGroupExtras(db: Db, channel: string, fitModel: string): Record<string, GroupExtras> {
+export function storedGroupExtras(db: Db, channel: string, settingHash: string): Record<string, GroupExtras> {
   const extras: Record<string, GroupExtras> = {};
   for (const a of listAnalyses(db, "global-fit")) {
     const sel = a.selection as { genotype?: string; channel?: string };
-    const settings = a.settings as { model?: string };
-    if (!sel.genotype || sel.channel !== channel || settings.model !== fitModel || extras[sel.genotype]?.lambdaGlobalUm) continue;
+    const settings = a.settings as { options?: unknown };
+    if (!sel.genotype || sel.channel !== channel || fitSettingHash(settings.options) !== settingHash || extras[sel.genotype]?.lambdaGlobalUm) continue;
     const full = getAnalysis(db, a.id)!;
     const fit = (full.result as { fit: { ok: boolean; shared?: Record<string, { value: number; se: number | null; ci95: [number, number] | null }> } }).fit;
     const lambda = fit.ok ? fit.shared?.lambdaUm : undefined;

@@ -1,5 +1,9 @@
 import type { StoredAnalysis } from "../../../db/analyses.ts";
 import type { SamplePlan } from "../../analysis/compare/planning/planSampleSize.ts";
+import { inputsOf, type AnalysisInputs } from "./analysisInputs.ts";
+
+/** What a stored plan keeps: the plan and, when it used fitted λ, its inputs. */
+export type StoredPlan = SamplePlan & { inputs?: AnalysisInputs };
 
 /**
  * The sample-size plan job's answer, rebuilt from what was stored: the job,
@@ -8,7 +12,8 @@ import type { SamplePlan } from "../../analysis/compare/planning/planSampleSize.
 export function planResponse(analysis: Pick<StoredAnalysis, "id" | "selection" | "settings" | "result">) {
   const selection = analysis.selection as { group: string | null };
   const settings = analysis.settings as { metric: "lambda" | "sigma_x" };
-  return { analysis_id: analysis.id, metric: settings.metric, group: selection.group, ...(analysis.result as SamplePlan) };
+  const { inputs, ...plan } = analysis.result as StoredPlan;
+  return { analysis_id: analysis.id, metric: settings.metric, group: selection.group, ...inputsOf({ inputs }), ...plan };
 }
 
 export type PlanResponse = ReturnType<typeof planResponse>;

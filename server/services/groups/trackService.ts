@@ -11,6 +11,8 @@ import type { TrackTaskInput, TrackTaskOutput } from "./trackTask.ts";
 import { planResponse } from "./planResponse.ts";
 import { trackPoints } from "./trackPoints.ts";
 import { trackingResponse, type StoredTracking } from "./trackingResponse.ts";
+import { analysisInputs, inputSettings } from "./analysisInputs.ts";
+import type { StoredPlan } from "./planResponse.ts";
 
 export interface PreparedTracking {
   request: TrackRequest;
@@ -36,7 +38,7 @@ export function prepareTracking(db: Db, request: TrackRequest): PreparedTracking
       throw new UserError("mixed-dosage-series", `Several genotypes have dosage 1 (${[...units].join(", ")}); choose the lines of one series, e.g. --genotype ${[...new Set(withDosage.map((r) => r.genotype))].filter((g) => !units.has(g) || g === [...units][0]).join(",")}.`, { status: 422 });
     }
     const unit = [...units][0];
-    const global = unit ? storedGroupExtras(db, gathered.channel, request.fitModel)[unit]?.lambdaGlobalUm : undefined;
+    const global = unit ? storedGroupExtras(db, gathered.channel, gathered.fitSetting.hash)[unit]?.lambdaGlobalUm : undefined;
     task = { over: "dosage", records: withDosage, options: { lambdaFitUm: global, bootstrap: request.bootstrap, seed: request.seed } };
   } else {
     task = { over: "length", records };
@@ -46,10 +48,10 @@ export function prepareTracking(db: Db, request: TrackRequest): PreparedTracking
 
 /** Store the tracking result with its per-embryo points and settings; answer with it and its provenance. */
 export function storeTracking(db: Db, prepared: PreparedTracking, output: TrackTaskOutput) {
-  const stored: StoredTracking = { ...output, points: trackPoints(prepared.task.records, output), fitted_now: prepared.gathered.fittedNow };
+  const stored: StoredTracking = { ...output, points: trackPoints(prepared.task.records, output), inputs: analysisInputs(prepared.gathered) };
   const analysis = {
     selection: { ...prepared.request.selection, channel: prepared.gathered.channel },
-    settings: { ...prepared.request, threshold: prepared.gathered.threshold },
+    settings: { ...prepared.request, threshold: prepared.gathered.threshold, ...inputSettings(prepared.gathered) },
     result: stored,
   };
   const id = storeAnalysis(db, { kind: "tracking", ...analysis, engineVersion: ENGINE_VERSION, profileIds: prepared.gathered.profileIds });
@@ -77,10 +79,11 @@ export function preparePlan(db: Db, request: PlanRequest): PreparedPlan {
 }
 
 export function storePlan(db: Db, prepared: PreparedPlan, plan: SamplePlan) {
+  const result: StoredPlan = prepared.gathered ? { ...plan, inputs: analysisInputs(prepared.gathered) } : plan;
   const analysis = {
     selection: { ...prepared.request.selection, channel: prepared.gathered?.channel ?? null, group: prepared.group },
-    settings: prepared.request,
-    result: plan,
+    settings: prepared.gathered ? { ...prepared.request, ...inputSettings(prepared.gathered) } : prepared.request,
+    result,
   };
   const id = storeAnalysis(db, { kind: "plan", ...analysis, engineVersion: ENGINE_VERSION, profileIds: prepared.gathered?.profileIds ?? [] });
   return planResponse({ id, ...analysis });

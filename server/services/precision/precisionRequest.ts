@@ -35,6 +35,8 @@ export const PrecisionRequest = z.object({
   seed: z.number().int().default(1),
   /** When a position's σ_x is left out: slope below `minSlopeSnr` standard errors, or σ_x above `maxSigmaFraction` of the grid span. */
   mask: z.object({ minSlopeSnr: z.number().min(0).default(3), maxSigmaFraction: z.number().positive().default(0.25) }).prefault({}),
+  /** Also use embryos and profiles that are excluded (they are left out by default and listed in the result). */
+  includeExcluded: z.boolean().default(false),
   /** Also estimate positional information with kernel densities (slow). */
   kernelDensity: z.boolean().default(false),
 });

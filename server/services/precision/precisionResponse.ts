@@ -82,6 +82,8 @@ export function precisionGroupResponse(analysisId: number, g: PrecisionGroupOutp
         }
       : null,
     slope_model: g.slopeModel,
+    /** Embryos and profiles left out by an exclusion, with the reasons. */
+    left_out: g.left_out ?? [],
   };
 }
 

@@ -6,6 +6,7 @@ import { UserError } from "../../userError.ts";
 import { ENGINE_VERSION } from "../../version.ts";
 import { describeSelection, selectionFilter } from "../selection.ts";
 import type { PrecisionRequest } from "./precisionRequest.ts";
+import { applyExclusions, type LeftOut } from "../exclusions/exclusionService.ts";
 import { precisionGroupResponse } from "./precisionResponse.ts";
 import type { PrecisionGroupOutput, PrecisionTaskInput } from "./precisionTask.ts";
 
@@ -22,8 +23,12 @@ export function preparePrecisionInput(db: Db, request: PrecisionRequest): Precis
   const genotypes = request.selection.genotype ? [request.selection.genotype] : (request.selection.genotypes ?? distinctValues(db, "genotype"));
   const groups = genotypes
     .map((genotype) => {
+      const leftOut: LeftOut[] = [];
       const perChannel = channels.map((channel) => {
-        const rows = loadProfiles(db, { ...selectionFilter({ ...request.selection, genotypes: undefined, genotype }), channel }).filter((p) => p.timeS === null);
+        // Excluded embryos and profiles are left out (and listed with their reasons) unless asked for.
+        const split = applyExclusions(db, loadProfiles(db, { ...selectionFilter({ ...request.selection, genotypes: undefined, genotype }), channel }).filter((p) => p.timeS === null), request.includeExcluded);
+        for (const l of split.leftOut) if (!leftOut.some((k) => k.embryo === l.embryo && k.channel === l.channel)) leftOut.push(l);
+        const rows = split.kept;
         return {
           channel,
           profileIds: rows.map((r) => r.profileId),
@@ -34,13 +39,14 @@ export function preparePrecisionInput(db: Db, request: PrecisionRequest): Precis
       for (const f of listFitItems(db, { genotype, channel: channels[0], model: "exponential" })) {
         if (f.status === "converged" && f.lambdaUm) lambdas[f.embryo] = { lambdaUm: f.lambdaUm.value };
       }
-      return { name: genotype, channels: perChannel, embryoSummaries: lambdas };
+      return { name: genotype, channels: perChannel, embryoSummaries: lambdas, leftOut };
     })
     .filter((g) => g.channels.every((c) => c.profiles.length > 0));
   if (groups.length === 0) {
     throw new UserError("nothing-selected", `No stored profiles of channel ${channels.map((c) => `"${c}"`).join(", ")} match ${describeSelection(request.selection)}.`, { status: 404 });
   }
-  return { request, groups };
+  const leftOut = Object.fromEntries(groups.map((g) => [g.name, g.leftOut]));
+  return { request, groups: groups.map(({ leftOut: _l, ...g }) => g), leftOut };
 }
 
 /** Store each group's analysis with its selection and settings and answer with the summaries. */
@@ -52,10 +58,10 @@ export function storePrecisionOutput(db: Db, input: PrecisionTaskInput, output: 
         selection: { ...input.request.selection, genotype: g.name, channels: g.channels },
         settings: input.request,
         engineVersion: ENGINE_VERSION,
-        result: g,
+        result: { ...g, left_out: input.leftOut?.[g.name] ?? [] },
         profileIds: g.profileIds,
       });
-      return precisionGroupResponse(analysisId, g);
+      return precisionGroupResponse(analysisId, { ...g, left_out: input.leftOut?.[g.name] ?? [] });
     }),
   };
 }

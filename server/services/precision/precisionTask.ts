@@ -1,3 +1,4 @@
+import type { LeftOut } from "../exclusions/exclusionService.ts";
 import type { Profile } from "../../analysis/ensemble/profile.ts";
 import { prepareEnsemble } from "../../analysis/ensemble/prepareEnsemble.ts";
 import { ensembleMoments } from "../../analysis/precision/ensembleMoments.ts";
@@ -20,6 +21,8 @@ export interface PrecisionTaskGroup {
 export interface PrecisionTaskInput {
   request: PrecisionRequest;
   groups: PrecisionTaskGroup[];
+  /** Per group, the embryos and profiles left out by an exclusion, with the reasons. */
+  leftOut?: Record<string, LeftOut[]>;
 }
 
 export interface PrecisionGroupOutput {
@@ -32,6 +35,8 @@ export interface PrecisionGroupOutput {
   joint: JointPrecisionResult | null;
   /** The exponential fit to the mean used as the slope model, when requested. */
   slopeModel: { lambda: number; amplitude: number; background: number } | null;
+  /** Embryos and profiles left out by an exclusion (added when stored). */
+  left_out?: LeftOut[];
 }
 
 export function precisionOptions(request: PrecisionRequest, progress: ProgressCallback | undefined, slopeModel?: SlopeModel): PrecisionOptionsInput {
