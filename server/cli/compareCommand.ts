@@ -5,7 +5,8 @@ import { numberOption } from "./cliNumbers.ts";
 import { COMMON_HELP, COMMON_OPTIONS, type Command } from "./command.ts";
 import { significant } from "./formatEstimate.ts";
 import { formatTable } from "./formatTable.ts";
-import { GROUP_HELP, GROUP_OPTIONS, groupRequestFields } from "./groupOptions.ts";
+import { GROUP_FIELD_OPTIONS, GROUP_HELP, GROUP_OPTIONS, groupRequestFields } from "./groupOptions.ts";
+import { inputsText } from "./inputsText.ts";
 import { openCliDatabase } from "./openCliDatabase.ts";
 import { progressReporter } from "./progressReporter.ts";
 import { zodToUserError } from "./zodToUserError.ts";
@@ -41,7 +42,7 @@ ${COMMON_HELP}`,
       permutations: numberOption("permutations", values.permutations as string | undefined),
       bootstrap: numberOption("bootstrap", values.bootstrap as string | undefined),
     });
-    if (!parsed.success) throw zodToUserError(parsed.error, { fitModel: "fit-model" });
+    if (!parsed.success) throw zodToUserError(parsed.error, GROUP_FIELD_OPTIONS);
     const { db } = await openCliDatabase(values.db as string | undefined, io);
     try {
       const prepared = prepareComparison(db, parsed.data);
@@ -80,6 +81,7 @@ ${COMMON_HELP}`,
         ),
       );
       for (const w of out.warnings) io.stdout(`! ${w}\n`);
+      io.stdout("\n" + inputsText(out));
       return 0;
     } finally {
       db.close();

@@ -17,7 +17,10 @@ export const fitCommand: Command = {
   help: `Usage: morphogauge fit [--genotype G] [--channel C] [--model M] [--window A:B] [--global] [--diffusion D±SE] [options]
 
 Fits each selected profile and stores the fit with its options. Refitting with
-the same options replaces the earlier fit; other options add a new one.
+the same options replaces the earlier fit; other options add a new one. Every
+fit belongs to a named fit setting (the model with its window, weights,
+background and fixed parameters); group analyses use one setting for all groups
+(--fits NAME). "morphogauge fits settings" lists the stored settings.
 
   --genotype G[,G2…]    only these genotypes
   --channel C           only this channel
@@ -30,6 +33,9 @@ the same options replaces the earlier fit; other options add a new one.
   --source-width UM     hold the source width of the "source" model at this value
   --weights W           none | poisson (default none)
   --robust L            none | soft-l1 | huber (default none): down-weight outlying points
+  --as NAME             name the fit setting of these fits, e.g. posterior-window (NAME-model with
+                        several models); default: the setting's stored name, or one made from
+                        the options (e.g. exponential-30um-on)
   --global              also fit each genotype × channel group with one shared λ
   --diffusion D±SE      a D measured elsewhere (e.g. FRAP), in µm²/s, e.g. 0.8±0.1: adds
                         k, half-life, source flux and local accumulation time
@@ -49,6 +55,7 @@ ${COMMON_HELP}`,
     "source-width": { type: "string" },
     weights: { type: "string" },
     robust: { type: "string" },
+    as: { type: "string" },
     global: { type: "boolean", default: false },
     diffusion: { type: "string" },
     "tau-at": { type: "string" },
@@ -72,6 +79,7 @@ ${COMMON_HELP}`,
         ...(values.weights ? { weights: values.weights } : {}),
         ...(values.robust ? { robust: { loss: values.robust } } : {}),
       },
+      as: values.as,
       global: values.global,
       diffusion: diffusion ? { valueUm2PerS: diffusion.value, seUm2PerS: diffusion.se } : undefined,
       accumulationPositionsUm: tauAt,
@@ -110,6 +118,7 @@ ${COMMON_HELP}`,
             "\n",
         );
       }
+      for (const st of result.settings) io.stdout(`\nFit setting ${st.name}${st.renamed ? " (renamed)" : ""}: ${st.description}\n`);
       const failed = result.fits.filter((f) => f.status !== "converged").length;
       io.stdout(`\n${result.fits.length} fits stored${failed ? `, ${failed} not converged (see status)` : ""}.\nNote: ${result.caveat}\n`);
       return 0;

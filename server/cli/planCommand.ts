@@ -5,7 +5,8 @@ import { UserError } from "../userError.ts";
 import { numberOption } from "./cliNumbers.ts";
 import { COMMON_HELP, COMMON_OPTIONS, type Command } from "./command.ts";
 import { formatTable } from "./formatTable.ts";
-import { GROUP_HELP, GROUP_OPTIONS, groupRequestFields } from "./groupOptions.ts";
+import { GROUP_FIELD_OPTIONS, GROUP_HELP, GROUP_OPTIONS, groupRequestFields } from "./groupOptions.ts";
+import { inputsText } from "./inputsText.ts";
 import { openCliDatabase } from "./openCliDatabase.ts";
 import { progressReporter } from "./progressReporter.ts";
 import { zodToUserError } from "./zodToUserError.ts";
@@ -39,7 +40,7 @@ ${COMMON_HELP}`,
       metric: values.metric,
       group: values.group,
     });
-    if (!parsed.success) throw zodToUserError(parsed.error, { fitModel: "fit-model" });
+    if (!parsed.success) throw zodToUserError(parsed.error, GROUP_FIELD_OPTIONS);
     const { db } = await openCliDatabase(values.db as string | undefined, io);
     try {
       const prepared = preparePlan(db, parsed.data);
@@ -62,6 +63,7 @@ ${COMMON_HELP}`,
         ),
       );
       for (const n of out.notes) io.stdout(`note: ${n}\n`);
+      io.stdout(inputsText(out));
       return 0;
     } finally {
       db.close();

@@ -8,6 +8,7 @@ import { significant } from "./formatEstimate.ts";
 import { openCliDatabase } from "./openCliDatabase.ts";
 import { progressReporter } from "./progressReporter.ts";
 import { zodToUserError } from "./zodToUserError.ts";
+import { leftOutText } from "./inputsText.ts";
 import { genotypeSelection } from "./groupOptions.ts";
 
 export const precisionCommand: Command = {
@@ -35,6 +36,7 @@ the slope of the mean profile, with a bootstrap band over embryos.
   --max-sigma-fraction F leave out σ_x above F of the grid span (default 0.25)
   --bootstrap N         resamples of whole embryos (default 1000)
   --seed N              bootstrap seed (default 1)
+  --include-excluded    also use excluded embryos (left out and listed by default)
 ${COMMON_HELP}
 
 With --json: one object for one group, or {"results": [...]} for several.`,
@@ -55,6 +57,7 @@ With --json: one object for one group, or {"results": [...]} for several.`,
     seed: { type: "string" },
     "min-slope-snr": { type: "string" },
     "max-sigma-fraction": { type: "string" },
+    "include-excluded": { type: "boolean", default: false },
   },
   async run(values, _positionals, io) {
     if (values.threshold !== undefined && values["at-position"] !== undefined) throw new UserError("bad-option", "give either --threshold or --at-position, not both");
@@ -73,6 +76,7 @@ With --json: one object for one group, or {"results": [...]} for several.`,
       region: region ? [region.min, region.max] : undefined,
       spacing: numberOption("spacing", values.spacing as string | undefined),
       bootstrap: numberOption("bootstrap", values.bootstrap as string | undefined),
+      includeExcluded: values["include-excluded"],
       seed: numberOption("seed", values.seed as string | undefined),
       mask: {
         minSlopeSnr: numberOption("min-slope-snr", values["min-slope-snr"] as string | undefined),
@@ -103,6 +107,7 @@ With --json: one object for one group, or {"results": [...]} for several.`,
         io.stdout(`  positional information: ${pi.small_noise !== null ? significant(pi.small_noise) : "—"} bits (small-noise)${ci(pi.ci95.small_noise)}, ${pi.direct !== null ? significant(pi.direct) : "—"} bits (direct)${ci(pi.ci95.direct)}\n`);
         if (r.joint?.min_sigma_x) io.stdout(`  joint σ_x from ${r.joint.channels.join(" + ")}: minimal ${significant(r.joint.min_sigma_x.value)}${u} at ${significant(r.joint.min_sigma_x.position)}\n`);
         for (const w of r.warnings) io.stdout(`  ! ${w.message}\n`);
+        if (r.left_out.length) io.stdout(`  left out (excluded): ${r.left_out.map(leftOutText).join("; ")}\n`);
       }
       return 0;
     } finally {

@@ -7,7 +7,8 @@ import type { TrackResult } from "../analysis/compare/tracking/trackOverTime.ts"
 import { numberOption } from "./cliNumbers.ts";
 import { COMMON_HELP, COMMON_OPTIONS, type Command } from "./command.ts";
 import { significant } from "./formatEstimate.ts";
-import { GROUP_HELP, GROUP_OPTIONS, groupRequestFields } from "./groupOptions.ts";
+import { GROUP_FIELD_OPTIONS, GROUP_HELP, GROUP_OPTIONS, groupRequestFields } from "./groupOptions.ts";
+import { inputsText } from "./inputsText.ts";
 import { openCliDatabase } from "./openCliDatabase.ts";
 import { zodToUserError } from "./zodToUserError.ts";
 
@@ -33,7 +34,7 @@ ${COMMON_HELP}`,
   async run(values, _positionals, io) {
     if (values.over === undefined) throw new UserError("bad-option", "--over is required: stage, age, dosage or length");
     const parsed = TrackRequest.safeParse({ ...groupRequestFields(values), over: values.over, metric: values.metric, trend: values.trend, bins: numberOption("bins", values.bins as string | undefined) });
-    if (!parsed.success) throw zodToUserError(parsed.error, { fitModel: "fit-model" });
+    if (!parsed.success) throw zodToUserError(parsed.error, GROUP_FIELD_OPTIONS);
     const { db } = await openCliDatabase(values.db as string | undefined, io);
     try {
       const prepared = prepareTracking(db, parsed.data);
@@ -62,6 +63,7 @@ ${COMMON_HELP}`,
           io.stdout(`${s.group}: ${s.n} embryos; ${slope}; ${steady}\n`);
         }
       }
+      io.stdout("\n" + inputsText(out));
       return 0;
     } finally {
       db.close();

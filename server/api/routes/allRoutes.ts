@@ -7,6 +7,7 @@ import { importRoutes } from "./importRoutes.ts";
 import { jobRoutes } from "./jobRoutes.ts";
 import { precisionRoutes } from "./precisionRoutes.ts";
 import { profileRoutes } from "./profileRoutes.ts";
+import { exclusionRoutes } from "./exclusionRoutes.ts";
 
 /** Every API route, in the order the reference lists them. */
-export const ALL_ROUTES: RouteDefinition[] = [...importRoutes, ...profileRoutes, ...fitRoutes, ...precisionRoutes, ...groupRoutes, ...jobRoutes, ...figureRoutes, ...exportRoutes];
+export const ALL_ROUTES: RouteDefinition[] = [...importRoutes, ...profileRoutes, ...fitRoutes, ...exclusionRoutes, ...precisionRoutes, ...groupRoutes, ...jobRoutes, ...figureRoutes, ...exportRoutes];
