@@ -69,13 +69,13 @@ describe("analysis API", () => {
   });
 
   it("POST /api/comparisons, /api/tracking and /api/plans run as jobs and store their analyses", async () => {
-    const cmp = await awaitJob(s.url, (await postJson(`${s.url}/api/comparisons`, { channel: "glm", selection: { genotypes: ["wt", "tardy"] }, permutations: 999, bootstrap: 500 })).body.id);
+    const cmp = await awaitJob(s.url, (await postJson(`${s.url}/api/comparisons`, { channel: "glm", fits: "exponential", selection: { genotypes: ["wt", "tardy"] }, permutations: 999, bootstrap: 500 })).body.id);
     expect(cmp.status).toBe("done");
     expect(cmp.result.contrasts).toHaveLength(1);
-    const trk = await awaitJob(s.url, (await postJson(`${s.url}/api/tracking`, { channel: "glm", over: "length", selection: { genotype: "wt" } })).body.id);
+    const trk = await awaitJob(s.url, (await postJson(`${s.url}/api/tracking`, { channel: "glm", fits: "exponential", over: "length", selection: { genotype: "wt" } })).body.id);
     expect(trk.status).toBe("done");
     expect(trk.result.over).toBe("length");
-    const plan = await awaitJob(s.url, (await postJson(`${s.url}/api/plans`, { channel: "glm", effect: 0.2, simulations: 200, permutationSimulations: 0 })).body.id);
+    const plan = await awaitJob(s.url, (await postJson(`${s.url}/api/plans`, { channel: "glm", fits: "exponential", effect: 0.2, simulations: 200, permutationSimulations: 0 })).body.id);
     expect(plan.status).toBe("done");
     expect(plan.result.n_required).toBeGreaterThan(1);
     const kinds = (await (await fetch(`${s.url}/api/analyses`)).json()).analyses.map((a: { kind: string }) => a.kind);
@@ -83,10 +83,36 @@ describe("analysis API", () => {
   });
 
   it("an unknown reference group fails the comparison job with a readable message", async () => {
-    const job = await awaitJob(s.url, (await postJson(`${s.url}/api/comparisons`, { channel: "glm", reference: "nonesuch", permutations: 99, bootstrap: 100 })).body.id);
+    const job = await awaitJob(s.url, (await postJson(`${s.url}/api/comparisons`, { channel: "glm", fits: "exponential", reference: "nonesuch", permutations: 99, bootstrap: 100 })).body.id);
     expect(job.status).toBe("failed");
     expect(job.error!.code).not.toBe("internal");
     expect(job.error!.message).toContain("nonesuch");
+  });
+
+  it("POST /api/comparisons without a fit setting refuses with 409, listing each stored setting and its coverage per genotype", async () => {
+    const res = await postJson(`${s.url}/api/comparisons`, { channel: "glm", selection: { genotypes: ["wt", "tardy"] } });
+    expect(res.status).toBe(409);
+    expect(res.body.error.code).toBe("choose-fit-setting");
+    const settings = (await (await fetch(`${s.url}/api/fit-settings?channel=glm`)).json()).settings as { name: string; coverage: { genotype: string; fitted: number; profiles: number }[] }[];
+    expect(settings.length).toBeGreaterThan(1);
+    for (const st of settings) {
+      const wt = st.coverage.find((c) => c.genotype === "wt")!;
+      if (wt.fitted > 0) expect(res.body.error.message).toContain(`${st.name} (`);
+    }
+  });
+
+  it("POST /api/exclusions and /api/inclusions exclude and include an embryo; the next comparison lists it and has one embryo fewer", async () => {
+    const ex = await postJson(`${s.url}/api/exclusions`, { embryo: "tdy-07", reason: "torn membrane" });
+    expect(ex.status).toBe(201);
+    expect((await (await fetch(`${s.url}/api/exclusions`)).json()).current).toEqual([expect.objectContaining({ embryo: "tdy-07", reason: "torn membrane", scope: "embryo" })]);
+    const cmp = await awaitJob(s.url, (await postJson(`${s.url}/api/comparisons`, { channel: "glm", fits: "exponential", selection: { genotypes: ["wt", "tardy"] }, permutations: 99, bootstrap: 100 })).body.id);
+    expect(cmp.result.groups.find((g: { name: string }) => g.name === "tardy").n).toBe(29);
+    expect(cmp.result.left_out).toEqual([expect.objectContaining({ embryo: "tdy-07", reason: "torn membrane" })]);
+    expect(cmp.result.fit_ids).toHaveLength(59);
+    const noReason = await postJson(`${s.url}/api/exclusions`, { embryo: "tdy-08", reason: " " });
+    expect(noReason.status).toBe(400);
+    expect((await postJson(`${s.url}/api/inclusions`, { embryo: "tdy-07" })).status).toBe(200);
+    expect((await (await fetch(`${s.url}/api/exclusions`)).json()).current).toEqual([]);
   });
 
   it("GET /api/analyses/:id is 404 for an unknown id", async () => {

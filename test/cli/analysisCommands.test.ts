@@ -124,9 +124,9 @@ describe("analysis commands on the demo database", () => {
   });
 
   it("track --over age and --over length report trends and scaling slopes per genotype", async () => {
-    const age = await json("track", "--over", "age", "--channel", "glm", "--genotype", "wt,tardy");
+    const age = await json("track", "--over", "age", "--channel", "glm", "--genotype", "wt,tardy", "--fit-model", "finite");
     expect(age.result.series.map((s: { group: string }) => s.group).sort()).toEqual(["tardy", "wt"]);
-    const length = await json("track", "--over", "length", "--channel", "glm", "--genotype", "wt");
+    const length = await json("track", "--over", "length", "--channel", "glm", "--genotype", "wt", "--fit-model", "finite");
     expect(length.result.groups[0].lambda.slope.ci95).toHaveLength(2);
   });
 

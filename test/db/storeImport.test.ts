@@ -86,7 +86,7 @@ describe("storing imports", () => {
     old.pragma("user_version = 0");
     old.close();
     const fresh = await openDatabase(path);
-    expect(fresh.migrated).toEqual([1]);
+    expect(fresh.migrated).toEqual(loadMigrations().map((m) => m.version));
     expect(fresh.db.pragma("journal_mode", { simple: true })).toBe("wal");
     expect(fresh.db.pragma("foreign_keys", { simple: true })).toBe(1);
     expect(fresh.db.prepare("SELECT v FROM keepme").get()).toEqual({ v: "precious" });
@@ -101,16 +101,18 @@ describe("storing imports", () => {
   it("openDatabase copies an older database aside before applying a newer migration", async () => {
     const dir = mkdtempSync(join(tmpdir(), "mg-"));
     const path = join(dir, "v1.db");
-    const v1 = await openDatabase(path);
+    const current = loadMigrations();
+    const v1 = await openDatabase(path, current);
     importFiles(v1.db, [{ name: "a.csv", bytes: wide(["E1"]) }], opts());
     v1.db.close();
-    const next = [...loadMigrations(), { version: 2, name: "002_test.sql", sql: "ALTER TABLE embryos ADD COLUMN note TEXT;" }];
+    const last = current.at(-1)!.version;
+    const next = [...current, { version: last + 1, name: "999_test.sql", sql: "ALTER TABLE embryos ADD COLUMN note TEXT;" }];
     const v2 = await openDatabase(path, next);
-    expect(v2.migrated).toEqual([2]);
-    expect(v2.backupPath).toBe(`${path}.before-schema-2`);
+    expect(v2.migrated).toEqual([last + 1]);
+    expect(v2.backupPath).toBe(`${path}.before-schema-${last + 1}`);
     v2.db.close();
-    const copy = new Database(`${path}.before-schema-2`, { readonly: true });
-    expect(copy.pragma("user_version", { simple: true })).toBe(1);
+    const copy = new Database(`${path}.before-schema-${last + 1}`, { readonly: true });
+    expect(copy.pragma("user_version", { simple: true })).toBe(last);
     expect(copy.prepare("SELECT COUNT(*) AS n FROM profiles").get()).toEqual({ n: 1 });
     copy.close();
   });

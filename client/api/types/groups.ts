@@ -1,3 +1,4 @@
+import type { AnalysisInputs } from "./inputs.ts";
 import type { Estimate, GroupSummary } from "./estimate.ts";
 
 /** A difference or ratio with its 95% CI. */
@@ -34,14 +35,13 @@ export interface Contrast {
 }
 
 /** The result of a comparison job (POST /api/comparisons). */
-export interface ComparisonResult {
+export interface ComparisonResult extends AnalysisInputs {
   analysis_id: number;
   channel: string;
   by: string;
   metric: "lambda" | "amplitude" | "boundary" | "sigma_x";
-  fit_model: string;
+  fit_model: string | null;
   boundary_threshold: { value: number; source: string } | null;
-  fitted_now: number;
   groups: ComparisonGroup[];
   contrasts: Contrast[];
   warnings: string[];
@@ -107,12 +107,11 @@ export interface LengthTrack {
   groups: { group: string; n: number; lambda: ScalingFit | null; boundary: ScalingFit | null; note: string | null }[];
 }
 
-interface TrackingBase {
+interface TrackingBase extends AnalysisInputs {
   analysis_id: number;
   channel: string;
-  fit_model: string;
+  fit_model: string | null;
   boundary_threshold: { value: number; source: string } | null;
-  fitted_now: number;
 }
 
 /** The result of a tracking job (POST /api/tracking), read according to `over`. */
@@ -120,7 +119,7 @@ export type TrackingResult = TrackingBase &
   ({ over: "stage" | "age"; result: TimeTrack } | { over: "dosage"; result: DosageTrack } | { over: "length"; result: LengthTrack });
 
 /** The result of a plan job (POST /api/plans). */
-export interface PlanResult {
+export interface PlanResult extends AnalysisInputs {
   analysis_id: number;
   metric: string;
   group: string;

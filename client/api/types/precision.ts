@@ -1,3 +1,4 @@
+import type { LeftOut } from "./inputs.ts";
 import type { Estimate } from "./estimate.ts";
 
 /** One group's positional-precision summary: `results[i]` of the precision job. */
@@ -44,7 +45,9 @@ export interface PrecisionSummary {
   derivative: string;
   warnings: { code: string; message: string; fix?: string; count?: number }[];
   flipped: { flagged: string[]; flipped: string[] } | null;
-  outliers: { flagged: unknown[] } | null;
+  outliers: { flagged: { embryo: string; metric: string; value: number; z: number }[] } | null;
+  /** Embryos and profiles left out by an exclusion, with the reasons. */
+  left_out?: LeftOut[];
   settings: { grid: { spacing: number; range: [number, number]; points: number }; bootstrap: { resamples: number; seed: number } };
   decoding: { positions: number[]; probability: number[][]; decodedMean: (number | null)[]; decodedSd: (number | null)[]; rmsError: number | null; leaveOneOut: boolean; channels: number; embryos: number } | null;
   /** The other channels' summaries when several were analysed together. */

@@ -16,6 +16,7 @@ import { formatPValue } from "../../format/formatPValue.ts";
 import { formatSignificant } from "../../format/significant.ts";
 import { uncertaintyDecimals } from "../../format/uncertaintyDecimals.ts";
 import { groupsState } from "./groupsState.ts";
+import { analysisInputsNotice } from "../../components/analysisInputsNotice.ts";
 import { METRICS } from "./metricUnits.ts";
 import { recordsFields } from "./recordsFields.ts";
 
@@ -33,7 +34,7 @@ const placeOf = (s: GroupSummary) => uncertaintyDecimals(s.sem);
 function groupTable(r: ComparisonResult): HTMLElement {
   const m = METRICS[r.metric];
   return dataTable<ComparisonGroup>({
-    caption: `${m.name} by ${r.by} (${m.unit}; ${r.channel}, ${r.fit_model} fits)`,
+    caption: `${m.name} by ${r.by} (${m.unit}; ${r.channel}, fits of setting ${r.fit_setting?.name ?? r.fit_model ?? "—"})`,
     rows: r.groups,
     csv: { href: csvExportUrl("comparison", { analysis: r.analysis_id }) },
     rowData: (g) => ({ group: g.name }),
@@ -96,7 +97,7 @@ export function comparisonResult(r: ComparisonResult): HTMLElement {
     "div",
     { class: "comparison-result", "data-analysis-id": String(r.analysis_id) },
     r.boundary_threshold && (r.metric === "boundary" || r.metric === "sigma_x") ? infoNotice(`Boundary threshold: ${formatSignificant(r.boundary_threshold.value, 4)} a.u. (${r.boundary_threshold.source}).`) : null,
-    r.fitted_now ? infoNotice(`${r.fitted_now} profiles had no ${r.fit_model} fit yet and were fitted for this comparison.`) : null,
+    analysisInputsNotice(r),
     ...r.warnings.map((w) => warningNotice(w)),
     chartPanel(`${METRICS[r.metric].name} by ${r.by}`, groupValuesFigure(r), { kind: "group-values", query: { analysis: r.analysis_id } }),
     groupTable(r),

@@ -4,7 +4,7 @@ import type { RecordsSettings } from "./recordsFields.ts";
 /** The Groups view's settings and last results, kept while the page is open. */
 export const groupsState = {
   compare: {
-    records: { genotypes: [], channel: "", fitModel: "exponential", threshold: undefined } as RecordsSettings,
+    records: { genotypes: [], channel: "", fits: "", fitModel: "", includeExcluded: false, threshold: undefined } as RecordsSettings,
     by: "genotype",
     reference: "",
     metric: "lambda",
@@ -13,7 +13,7 @@ export const groupsState = {
     result: null as ComparisonResult | null,
   },
   track: {
-    records: { genotypes: [], channel: "", fitModel: "exponential", threshold: undefined } as RecordsSettings,
+    records: { genotypes: [], channel: "", fits: "", fitModel: "", includeExcluded: false, threshold: undefined } as RecordsSettings,
     over: "stage",
     metric: "lambda",
     trend: "linear",
@@ -21,7 +21,7 @@ export const groupsState = {
     result: null as TrackingResult | null,
   },
   plan: {
-    records: { genotypes: [], channel: "", fitModel: "exponential", threshold: undefined } as RecordsSettings,
+    records: { genotypes: [], channel: "", fits: "", fitModel: "", includeExcluded: false, threshold: undefined } as RecordsSettings,
     effectPercent: 10,
     power: 0.8,
     alpha: 0.05,

@@ -1,3 +1,4 @@
+import { analysisInputsNotice } from "../../components/analysisInputsNotice.ts";
 import type { Choices } from "../../api/fetchChoices.ts";
 import { csvExportUrl } from "../../api/exportUrl.ts";
 import { apiPost } from "../../api/http.ts";
@@ -24,6 +25,7 @@ export function planResult(r: PlanResult): HTMLElement {
   return el(
     "div",
     { class: "plan-result", "data-analysis-id": String(r.analysis_id) },
+    analysisInputsNotice(r),
     keyNumbers([
       { label: "Embryos per group", value: `${r.n_required}${r.capped ? " or more (search capped)" : ""}`, note: `to detect a ${formatPercent(r.settings.effect, 0)} change in ${what} with power ${r.settings.power} at α = ${r.settings.alpha}`, key: "n-required" },
       { label: "Embryo-to-embryo CV used", value: formatPercent(r.cv, 1), note: `from the embryos of ${r.group}` },

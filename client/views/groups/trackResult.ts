@@ -6,6 +6,7 @@ import { dataTable } from "../../components/dataTable.ts";
 import { el } from "../../components/el.ts";
 import { keyNumbers } from "../../components/keyNumbers.ts";
 import { infoNotice, warningNotice } from "../../components/notice.ts";
+import { analysisInputsNotice } from "../../components/analysisInputsNotice.ts";
 import { trendFigure } from "../../figures/index.ts";
 import { formatEstimate, formatInterval } from "../../format/formatEstimate.ts";
 import { formatPValue } from "../../format/formatPValue.ts";
@@ -109,6 +110,7 @@ export function trackResult(r: TrackingResult, metric: string): HTMLElement {
   return el(
     "div",
     { class: "tracking-result", "data-analysis-id": String(r.analysis_id), "data-over": r.over },
+    analysisInputsNotice(r),
     r.boundary_threshold ? el("p", { class: "hint" }, `Boundary threshold: ${formatSignificant(r.boundary_threshold.value, 4)} a.u. (${r.boundary_threshold.source}).`) : null,
     chartPanel(`Trend over ${r.over}`, trendFigure(r), { kind: "trend", query: { analysis: r.analysis_id } }),
     el("p", {}, el("a", { class: "btn btn-secondary", href: csvExportUrl("tracking", { analysis: r.analysis_id }), download: "", "data-role": "csv-points" }, "Download the per-embryo values (CSV)")),

@@ -4,7 +4,8 @@ import { chartPanel } from "../../components/chartPanel.ts";
 import { dataTable } from "../../components/dataTable.ts";
 import { el } from "../../components/el.ts";
 import { keyNumbers } from "../../components/keyNumbers.ts";
-import { infoNotice, warningNotice } from "../../components/notice.ts";
+import { errorNotice, infoNotice, warningNotice } from "../../components/notice.ts";
+import { excludeButton, includeButton, leftOutText } from "../../components/exclusionControls.ts";
 import { boundaryFigure, decodingMapFigure, ensembleFigure, sigmaXFigure } from "../../figures/index.ts";
 import { formatEstimate, formatInterval } from "../../format/formatEstimate.ts";
 import { formatPercent } from "../../format/formatPercent.ts";
@@ -29,6 +30,54 @@ function bits(value: number | null | undefined, ci: [number, number] | null | un
   return `${formatEstimate({ value, ci95: ci ?? null }, "bits")}${ci ? ` ${formatInterval(ci, place)}` : ""}`;
 }
 
+/** Each flagged embryo with a button that excludes it (with a reason) from the next runs. */
+function flagsPanel(p: PrecisionSummary): HTMLElement | null {
+  const flagged = p.outliers?.flagged ?? [];
+  if (flagged.length === 0) return null;
+  const embryos = [...new Set(flagged.map((f) => f.embryo))];
+  return el(
+    "div",
+    { class: "flags", "data-role": "precision-flags" },
+    el("h3", {}, "Flagged embryos"),
+    el(
+      "ul",
+      {},
+      ...embryos.map((embryo) => {
+        const why = flagged.filter((f) => f.embryo === embryo).map((f) => `${f.metric}, robust z = ${formatSignificant(f.z, 2)}`).join("; ");
+        const slot = el("span", {});
+        const done = () => slot.replaceChildren(el("span", { class: "hint", "data-role": "excluded-note" }, "excluded — run the analysis again to leave it out"));
+        slot.append(excludeButton({ embryo }, done, `flagged in precision (${why})`));
+        return el("li", { "data-embryo": embryo }, `${embryo} (${why}) `, slot);
+      }),
+    ),
+    el("p", { class: "hint" }, "Flagged embryos are kept in the analysis. Exclude one only if its images show a failure; the reason is kept and every later analysis lists it."),
+  );
+}
+
+/** Who this run left out and why, each with a button to include it again. */
+function leftOutPanel(p: PrecisionSummary): HTMLElement {
+  const left = p.left_out ?? [];
+  if (left.length === 0) return el("p", { class: "hint", "data-role": "left-out" }, "No embryo was left out.");
+  const problem = el("div");
+  return el(
+    "div",
+    { "data-role": "left-out" },
+    infoNotice(
+      el("strong", {}, "Left out (excluded). "),
+      el(
+        "ul",
+        {},
+        ...left.map((l) => {
+          const slot = el("span", {});
+          slot.append(includeButton({ embryo: l.embryo, ...(l.scope === "profile" && l.channel ? { channel: l.channel } : {}) }, () => slot.replaceChildren(el("span", { class: "hint" }, "included again — run the analysis again to use it")), (e) => problem.replaceChildren(errorNotice(e))));
+          return el("li", { "data-embryo": l.embryo }, `${leftOutText(l)} `, slot);
+        }),
+      ),
+    ),
+    problem,
+  );
+}
+
 /** One group's positional precision: method, headline numbers, the four figures, boundaries per embryo and warnings. */
 export function precisionResult(p: PrecisionSummary): HTMLElement {
   const lu = p.unit === "um" ? "µm" : "x/L";
@@ -42,7 +91,7 @@ export function precisionResult(p: PrecisionSummary): HTMLElement {
   return el(
     "section",
     { class: "panel precision-result", "data-group": p.group, "data-analysis-id": String(p.analysis_id) },
-    el("h2", {}, `${label} — ${p.n_embryos} embryos`),
+    el("h2", {}, `${label} — ${p.n_embryos} embryos${p.left_out?.length ? ` (${p.left_out.length} left out)` : ""}`),
     infoNotice(
       el("strong", {}, "Method. "),
       `Positional error σ_x(x) = σ_c(x) / |dc̄/dx| across embryos. Normalisation: ${NORMALISATION_WORDS[p.normalisation] ?? p.normalisation}. `,
@@ -112,6 +161,8 @@ export function precisionResult(p: PrecisionSummary): HTMLElement {
       : null,
     pi ? el("p", { class: "hint" }, pi.region ? `Region for positional information: ${lengthText(p, pi.region.from)}–${lengthText(p, pi.region.to)} (${pi.region.source}). ` : "", pi.note) : null,
     ...p.warnings.map((w) => warningNotice(w.message, w.fix)),
+    flagsPanel(p),
+    leftOutPanel(p),
     el(
       "div",
       { class: "columns" },

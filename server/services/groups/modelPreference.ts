@@ -1,7 +1,9 @@
+import { createHash } from "node:crypto";
 import { akaikeWeights } from "../../analysis/fit/akaikeWeights.ts";
 import { fitProfile } from "../../analysis/fit/fitProfile.ts";
 import type { ResolvedFitOptions } from "../../analysis/fit/fitOptions.ts";
 import { modelNames, type ModelName } from "../../analysis/models/steadyStateModel.ts";
+import { canonicalJson } from "../../../db/stableHash.ts";
 
 /** A profile as the model check needs it. */
 export interface PreferenceProfile {
@@ -49,6 +51,15 @@ const MAJORITY = 0.5;
 export type AiccTable = Map<number, Map<string, number>>;
 
 /**
+ * AICc of fits already made in this process, by the profile's data, options
+ * and model, so a repeated analysis does not refit the same profiles (keyed by
+ * the data, not the id: another database file can reuse an id). Bounded, and
+ * cleared whole when full.
+ */
+const remembered = new Map<string, number | null>();
+const REMEMBER_AT_MOST = 200_000;
+
+/**
  * Fit every model to every profile with the same options except the model
  * (so AICc compares models on the same points). AICc values already known
  * (the stored fits of the setting used) are passed in and not refitted. The
@@ -58,14 +69,22 @@ export function modelAicc(profiles: readonly PreferenceProfile[], options: Resol
   const aicc: AiccTable = new Map();
   for (const p of profiles) {
     const row = new Map<string, number>();
+    const fingerprint = createHash("sha256").update(new Uint8Array(p.x.buffer, p.x.byteOffset, p.x.byteLength)).update(new Uint8Array(p.y.buffer, p.y.byteOffset, p.y.byteLength)).update(String(p.lengthUm)).digest("base64");
     for (const model of modelNames as readonly ModelName[]) {
       const given = model === options.model ? known.get(p.profileId) : undefined;
       if (given !== undefined) {
         if (given !== null && Number.isFinite(given)) row.set(model, given);
         continue;
       }
-      const fit = fitProfile(p.x, p.y, { ...options, model }, { lengthUm: p.lengthUm ?? undefined });
-      if (fit.ok && fit.aicc !== null && Number.isFinite(fit.aicc)) row.set(model, fit.aicc);
+      const key = `${fingerprint}|${canonicalJson({ ...options, model })}`;
+      let value = remembered.get(key);
+      if (value === undefined) {
+        const fit = fitProfile(p.x, p.y, { ...options, model }, { lengthUm: p.lengthUm ?? undefined });
+        value = fit.ok && fit.aicc !== null && Number.isFinite(fit.aicc) ? fit.aicc : null;
+        if (remembered.size >= REMEMBER_AT_MOST) remembered.clear();
+        remembered.set(key, value);
+      }
+      if (value !== null) row.set(model, value);
     }
     aicc.set(p.profileId, row);
   }
