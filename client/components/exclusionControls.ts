@@ -1,6 +1,6 @@
 import { apiPost } from "../api/http.ts";
 import type { LeftOut } from "../api/types/inputs.ts";
-import { el } from "./el.ts";
+import { append, el } from "./el.ts";
 import { button, field, textInput } from "./formFields.ts";
 import { errorNotice } from "./notice.ts";
 
@@ -16,10 +16,11 @@ const targetText = (t: ExclusionTarget) => `${t.embryo}${t.channel ? `, channel 
  * Ask for the reason and exclude the embryo (or profile): a modal dialog whose
  * safe choice has the focus first. Resolves true when the exclusion was stored.
  */
-export function excludeDialog(target: ExclusionTarget, suggestion = ""): Promise<boolean> {
+export function excludeDialog(target: ExclusionTarget, suggestion = "", offerChannel?: string): Promise<boolean> {
   return new Promise((resolve) => {
     const dialog = el("dialog", { class: "confirm", "aria-labelledby": "exclude-title", "data-role": "exclude-dialog" });
     const reason = textInput("reason", suggestion, "e.g. out of focus");
+    const onlyChannel = offerChannel ? el("input", { type: "checkbox", name: "onlyChannel" }) : null;
     const problem = el("div");
     const finish = (answer: boolean) => {
       dialog.close();
@@ -30,17 +31,19 @@ export function excludeDialog(target: ExclusionTarget, suggestion = ""): Promise
     const go = button(
       "Exclude",
       () => {
-        void apiPost("api/exclusions", { ...target, reason: reason.value })
+        void apiPost("api/exclusions", { ...target, ...(onlyChannel?.checked ? { channel: offerChannel } : {}), reason: reason.value })
           .then(() => finish(true))
           .catch((e) => problem.replaceChildren(errorNotice(e)));
       },
       "danger",
       { "data-role": "confirm-exclude" },
     );
-    dialog.append(
+    append(
+      dialog,
       el("h2", { id: "exclude-title" }, `Exclude ${targetText(target)}`),
       el("p", {}, "The embryo stays stored. Group analyses and precision leave it out from now on and list it with this reason; you can include it again at any time."),
       field("Reason", reason),
+      onlyChannel ? el("label", { class: "check" }, onlyChannel, ` only the ${offerChannel} profile (keep the embryo's other channels)`) : null,
       problem,
       el("div", { class: "actions" }, cancel, go),
     );
@@ -55,8 +58,8 @@ export function excludeDialog(target: ExclusionTarget, suggestion = ""): Promise
 }
 
 /** A small "Exclude…" button that asks for the reason, then calls `done`. */
-export function excludeButton(target: ExclusionTarget, done: () => void, suggestion = ""): HTMLButtonElement {
-  return button("Exclude…", () => void excludeDialog(target, suggestion).then((ok) => ok && done()), "secondary", { "data-role": "exclude", "data-embryo": target.embryo });
+export function excludeButton(target: ExclusionTarget, done: () => void, suggestion = "", offerChannel?: string): HTMLButtonElement {
+  return button("Exclude…", () => void excludeDialog(target, suggestion, offerChannel).then((ok) => ok && done()), "secondary", { "data-role": "exclude", "data-embryo": target.embryo });
 }
 
 /** An "Include again" button for something excluded. */

@@ -90,7 +90,8 @@ describe("analysis API", () => {
   });
 
   it("POST /api/comparisons without a fit setting refuses with 409, listing each stored setting and its coverage per genotype", async () => {
-    const res = await postJson(`${s.url}/api/comparisons`, { channel: "glm", selection: { genotypes: ["wt", "tardy"] } });
+    // wt was fitted with the exponential and the finite model over 30– µm, and with the default exponential fit.
+    const res = await postJson(`${s.url}/api/comparisons`, { channel: "glm", by: "stage", selection: { genotype: "wt" } });
     expect(res.status).toBe(409);
     expect(res.body.error.code).toBe("choose-fit-setting");
     const settings = (await (await fetch(`${s.url}/api/fit-settings?channel=glm`)).json()).settings as { name: string; coverage: { genotype: string; fitted: number; profiles: number }[] }[];

@@ -14,6 +14,8 @@ export interface FitItem {
   lambdaUm: Estimate | null;
   aicc: number | null;
   window: { xMinUm?: number; xMaxUm?: number } | null;
+  /** Name of the fit setting the fit belongs to. */
+  setting: string | null;
   createdAt: string;
   /** Weight among the models stored for this profile over the same window; null when it is the only one. */
   akaikeWeight: number | null;
@@ -86,6 +88,8 @@ export interface JobGlobalFit {
 export interface FitJobResult {
   fits: JobFit[];
   global: JobGlobalFit[];
+  /** The named fit setting of each model's fits. */
+  settings?: { name: string; model: string; description: string; renamed: boolean }[];
   group_model_comparison: { genotype: string; channel: string; best: string; message: string }[];
   caveat: string;
 }

@@ -7,6 +7,8 @@ import { button, field, select, textInput } from "../../components/formFields.ts
 import { errorNotice, warningNotice } from "../../components/notice.ts";
 import { formatPlain } from "../../format/significant.ts";
 import { metadataFilter } from "./metadataFilter.ts";
+import type { ExclusionOverview, LeftOut } from "../../api/types/inputs.ts";
+import { excludeButton, includeButton } from "../../components/exclusionControls.ts";
 
 const PAGE_SIZE = 50;
 
@@ -30,8 +32,11 @@ export function embryoList(): { element: HTMLElement; refresh(): Promise<void> }
         replaceChildren(body, warningNotice(`Metadata filter: ${filter.problems.join("; ")}.`, "Write it as KEY=VALUE, e.g. mounting=lateral; separate several with commas."));
         return;
       }
-      const page = await apiGet<ProfilePage>("api/profiles", { genotype: state.genotype, channel: state.channel, limit: PAGE_SIZE, offset: state.offset, ...filter.query });
-      replaceChildren(body, table(page), pager(page));
+      const [page, exclusions] = await Promise.all([
+        apiGet<ProfilePage>("api/profiles", { genotype: state.genotype, channel: state.channel, limit: PAGE_SIZE, offset: state.offset, ...filter.query }),
+        apiGet<ExclusionOverview>("api/exclusions"),
+      ]);
+      replaceChildren(body, table(page, exclusions, () => void refresh(), (e) => replaceChildren(body, errorNotice(e))), pager(page));
     } catch (e) {
       replaceChildren(body, errorNotice(e));
     }
@@ -79,7 +84,12 @@ function replaceOptions(s: HTMLSelectElement, options: [string, string][], value
   s.value = options.some(([v]) => v === value) ? value : "";
 }
 
-function table(page: ProfilePage): HTMLElement {
+/** The exclusion in force for a profile: of its embryo, or of that profile's channel and time. */
+function exclusionOf(p: ProfileItem, ex: ExclusionOverview): LeftOut | undefined {
+  return ex.current.find((e) => e.embryo === p.embryo && (e.scope === "embryo" || (e.channel === p.channel && e.time_s === p.timeS)));
+}
+
+function table(page: ProfilePage, exclusions: ExclusionOverview, changed: () => void, failed: (e: unknown) => void): HTMLElement {
   return dataTable<ProfileItem>({
     caption: "Profiles by genotype",
     rows: page.items.slice().sort((a, b) => a.genotype.localeCompare(b.genotype) || a.embryo.localeCompare(b.embryo, undefined, { numeric: true }) || a.channel.localeCompare(b.channel)),
@@ -100,6 +110,19 @@ function table(page: ProfilePage): HTMLElement {
       { header: "Reversed", cell: (p) => (p.flipped ? "yes" : "no") },
       { header: "Other metadata", cell: (p) => Object.entries(p.metadata).map(([k, v]) => `${k}=${v}`).join(", ") || "—" },
       { header: "File", cell: (p) => p.fileName },
+      {
+        header: "In group analyses",
+        csv: (p) => {
+          const x = exclusionOf(p, exclusions);
+          return x ? `excluded: ${x.reason}` : "used";
+        },
+        cell: (p) => {
+          const x = exclusionOf(p, exclusions);
+          if (!x) return el("span", {}, "used ", excludeButton({ embryo: p.embryo }, changed, "", p.channel));
+          const target = x.scope === "profile" && x.channel ? { embryo: p.embryo, channel: x.channel } : { embryo: p.embryo };
+          return el("span", { "data-role": "excluded" }, `excluded${x.scope === "profile" ? " (this channel)" : ""}: ${x.reason} `, includeButton(target, changed, failed));
+        },
+      },
     ],
   });
 }

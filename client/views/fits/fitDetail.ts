@@ -4,6 +4,7 @@ import type { FitDetail } from "../../api/types/fits.ts";
 import { chartPanel } from "../../components/chartPanel.ts";
 import { el } from "../../components/el.ts";
 import { infoNotice, warningNotice } from "../../components/notice.ts";
+import { excludeButton } from "../../components/exclusionControls.ts";
 import { profileFitFigure, residualFigure } from "../../figures/index.ts";
 import { formatEstimate, formatEstimateInterval } from "../../format/formatEstimate.ts";
 import { fixed, formatSignificant } from "../../format/significant.ts";
@@ -51,12 +52,22 @@ export function fitDetail(fit: FitDetail): HTMLElement {
     el("tbody", {}, ...parameterRows(f.parameters ?? {}, "fitted"), ...parameterRows(f.derived ?? {}, "derived")),
   );
   const warnings = (f.warnings ?? []).map((w) => warningNotice(typeof w === "string" ? w : w.message));
+  const flag = f.status !== "converged" ? `fit ${f.status}` : warnings.length ? `fit warning: ${String(typeof f.warnings![0] === "string" ? f.warnings![0] : f.warnings![0].message)}` : "";
+  const exclusion = el("p", { "data-role": "fit-exclusion" });
+  if (fit.profile) {
+    const embryo = fit.profile.embryo;
+    exclusion.append(
+      flag ? `${embryo} is flagged (${flag}). ` : "",
+      excludeButton({ embryo }, () => exclusion.replaceChildren(el("span", { class: "hint" }, `${embryo} is excluded: group analyses and precision leave it out from their next run.`)), flag ? `flagged in Fits (${flag})` : "", fit.profile.channel),
+    );
+  }
   return el(
     "div",
     { class: "fit-detail", "data-fit-id": String(fit.id) },
     el("h3", {}, `${label}: ${f.model} fit — ${f.status}`),
     el("p", { class: "muted" }, `${f.message}. ${f.n} points; R² = ${formatSignificant(f.r2, 4)}; residual SD = ${formatSignificant(f.residualSd, 3)} a.u.; AICc = ${f.aicc === null ? "—" : fixed(f.aicc, 1)}.`),
     ...warnings,
+    exclusion,
     el(
       "div",
       { class: "columns" },

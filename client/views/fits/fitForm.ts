@@ -3,7 +3,7 @@ import { apiPost } from "../../api/http.ts";
 import type { FitJobResult } from "../../api/types/fits.ts";
 import type { JobView } from "../../api/types/job.ts";
 import { el } from "../../components/el.ts";
-import { button, checkboxGroup, field, numberInput, numberValue, select } from "../../components/formFields.ts";
+import { button, checkboxGroup, field, numberInput, numberValue, select, textInput } from "../../components/formFields.ts";
 import { runJob } from "../../components/jobProgress.ts";
 import { fitsState } from "./fitsState.ts";
 
@@ -26,6 +26,7 @@ export function fitForm(choices: Choices, onSelectionChange: () => void, onDone:
   const models = checkboxGroup("Models (several are ranked by AICc)", "models", MODELS, fitsState.models);
   const xMin = numberInput("xMinUm", fitsState.xMinUm ?? "", { min: 0, placeholder: "start of profile" });
   const xMax = numberInput("xMaxUm", fitsState.xMaxUm ?? "", { min: 0, placeholder: "end of profile" });
+  const settingName = textInput("as", "", "generated from the options");
   const global = el("input", { type: "checkbox", id: "fit-global", name: "global" });
   global.checked = fitsState.global;
   const progress = el("div", { "data-role": "fit-progress" });
@@ -54,6 +55,7 @@ export function fitForm(choices: Choices, onSelectionChange: () => void, onDone:
       selection: { genotype: fitsState.genotype || undefined, channel: fitsState.channel || undefined },
       models: fitsState.models.length ? fitsState.models : ["exponential"],
       options: window ? { window } : {},
+      ...(settingName.value.trim() ? { as: settingName.value.trim() } : {}),
       global: fitsState.global,
     };
     run.disabled = true;
@@ -61,7 +63,7 @@ export function fitForm(choices: Choices, onSelectionChange: () => void, onDone:
     run.disabled = false;
     if (result) {
       fitsState.lastJob = result;
-      progress.replaceChildren(el("p", { class: "muted", "data-role": "fit-done" }, `Fitted ${result.fits.length} profile × model combinations${result.global.length ? ` and ${result.global.length} global fits` : ""}.`));
+      progress.replaceChildren(el("p", { class: "muted", "data-role": "fit-done" }, `Fitted ${result.fits.length} profile × model combinations${result.global.length ? ` and ${result.global.length} global fits` : ""}, under fit setting ${(result.settings ?? []).map((st) => `${st.name} (${st.description})`).join(", ")}.`));
       onDone(result);
     }
   };
@@ -70,7 +72,7 @@ export function fitForm(choices: Choices, onSelectionChange: () => void, onDone:
   return el(
     "div",
     { class: "fit-form" },
-    el("div", { class: "field-row" }, field("Genotype", genotype), field("Channel", channel), field("Window from (µm)", xMin), field("Window to (µm)", xMax)),
+    el("div", { class: "field-row" }, field("Genotype", genotype), field("Channel", channel), field("Window from (µm)", xMin), field("Window to (µm)", xMax), field("Name of this fit setting", settingName, "group analyses choose fits by this name")),
     models.element,
     el("label", { for: "fit-global", class: "check" }, global, " Also fit each genotype × channel group globally (one shared λ, per-embryo amplitude and background)"),
     el("div", { class: "actions" }, run),

@@ -30,6 +30,7 @@ export function fitTable(fits: FitItem[], csv: { href: string } | { fileName: st
       { header: "Akaike weight", cell: (f) => formatSignificant(f.akaikeWeight, 2), numeric: true },
       { header: "AICc", cell: (f) => (f.aicc === null ? "—" : fixed(f.aicc, 1)), numeric: true },
       { header: "Window (µm)", cell: (f) => windowText(f.window) },
+      { header: "Fit setting", cell: (f) => f.setting ?? "—" },
     ],
   });
 }
