@@ -1,3 +1,4 @@
+import { csvExportUrl } from "../api/exportUrl.ts";
 import type { AnalysisInputs } from "../api/types/inputs.ts";
 import { el } from "./el.ts";
 import { infoNotice, warningNotice } from "./notice.ts";
@@ -7,7 +8,7 @@ import { leftOutText } from "./exclusionControls.ts";
  * Where a group analysis's numbers come from: its fit setting and fits, the
  * embryos left out and why, and any model AICc prefers over the one used.
  */
-export function analysisInputsNotice(r: AnalysisInputs): HTMLElement {
+export function analysisInputsNotice(r: AnalysisInputs & { analysis_id: number }): HTMLElement {
   return el(
     "div",
     { class: "analysis-inputs", "data-role": "analysis-inputs" },
@@ -30,6 +31,7 @@ export function analysisInputsNotice(r: AnalysisInputs): HTMLElement {
           ? el("p", { class: "hint" }, "No embryo was left out.")
           : null,
     ),
+    el("p", {}, el("a", { class: "btn btn-secondary", href: csvExportUrl("inputs", { analysis: r.analysis_id }), download: "", "data-role": "csv-inputs" }, "Download the profiles, fit ids and left-out embryos (CSV)")),
     ...(r.model_preference?.warnings ?? []).map((w) => warningNotice(w, "Choose the fits with the fit setting and model fields above; “best” uses one model, chosen by AICc summed over all groups, for every group.")),
   );
 }

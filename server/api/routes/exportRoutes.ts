@@ -9,7 +9,7 @@ export const exportRoutes = [
     tag: "exports",
     summary: "A results table as CSV (RFC 4180; units in the column names, e.g. lambda_um)",
     description:
-      "fits: the newest fit of every profile and model with λ, SE and 95% CI (filter by genotype, channel, model). precision: σ_x with its CI and the mean ± SD profile of analysis=ID (channel= for another channel). comparison: group estimates and contrasts of analysis=ID. tracking: its per-embryo points. plan: its power table.",
+      "fits: the newest fit of every profile and model with λ, SE and 95% CI (filter by genotype, channel, model). precision: σ_x with its CI and the mean ± SD profile of analysis=ID (channel= for another channel). comparison: group estimates and contrasts of analysis=ID. tracking: its per-embryo points. plan: its power table. inputs: the profiles analysis=ID used (with each fit id and the fit setting) and those an exclusion left out, with the reason.",
     params: z.object({ table: z.enum(EXPORT_TABLES) }),
     query: z.object({
       analysis: z.coerce.number().int().positive().optional().describe("Stored analysis id (every table but fits)."),

@@ -9,8 +9,9 @@ import { fitTable } from "./fitTable.ts";
 import { planTable } from "./planTable.ts";
 import { precisionTable } from "./precisionTable.ts";
 import { trackingTable } from "./trackingTable.ts";
+import { inputsTable } from "./inputsTable.ts";
 
-export const EXPORT_TABLES = ["fits", "precision", "comparison", "tracking", "plan"] as const;
+export const EXPORT_TABLES = ["fits", "precision", "comparison", "tracking", "plan", "inputs"] as const;
 export type ExportTable = (typeof EXPORT_TABLES)[number];
 
 export interface TableRequest {
@@ -48,6 +49,8 @@ export function storedTable(db: Db, request: TableRequest): { csv: string; fileN
       const t = analysisResponse(db, id, "tracking", use);
       return { csv: csvText(trackingTable(t)), fileName: name(`${t.over}_${t.channel}`) };
     }
+    case "inputs":
+      return { csv: csvText(inputsTable(db, id)), fileName: name("profiles-fits-left-out") };
     case "plan": {
       const p = analysisResponse(db, id, "plan", use);
       return { csv: csvText(planTable(p)), fileName: name(`${p.metric}${p.group ? `_${p.group}` : ""}`) };

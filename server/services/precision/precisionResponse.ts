@@ -54,6 +54,8 @@ export function precisionSummary(analysisId: number, g: PrecisionGroupOutput, r:
     outliers: r.outliers,
     warnings: r.warnings,
     settings: r.settings,
+    /** Embryos and profiles left out by an exclusion, with the reasons. */
+    left_out: g.left_out ?? [],
   };
 }
 
@@ -82,8 +84,6 @@ export function precisionGroupResponse(analysisId: number, g: PrecisionGroupOutp
         }
       : null,
     slope_model: g.slopeModel,
-    /** Embryos and profiles left out by an exclusion, with the reasons. */
-    left_out: g.left_out ?? [],
   };
 }
 

@@ -55,7 +55,8 @@ export function storePrecisionOutput(db: Db, input: PrecisionTaskInput, output: 
     results: output.map((g) => {
       const analysisId = storeAnalysis(db, {
         kind: "precision",
-        selection: { ...input.request.selection, genotype: g.name, channels: g.channels },
+        // Who was left out is part of what was analysed: a run after an exclusion is stored beside the earlier one.
+        selection: { ...input.request.selection, genotype: g.name, channels: g.channels, ...(input.leftOut?.[g.name]?.length ? { leftOut: input.leftOut[g.name].map((l) => [l.embryo, l.channel]) } : {}) },
         settings: input.request,
         engineVersion: ENGINE_VERSION,
         result: { ...g, left_out: input.leftOut?.[g.name] ?? [] },

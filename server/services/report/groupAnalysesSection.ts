@@ -7,6 +7,7 @@ import { escapeHtml } from "./escapeHtml.ts";
 import type { ReportData } from "./gatherReport.ts";
 import { htmlTable } from "./htmlTable.ts";
 import { settingsBlock } from "./settingsBlock.ts";
+import { analysisInputsHtml } from "./analysisInputsHtml.ts";
 
 type Figures = (section: string) => EmbeddedFigure[];
 const p = (v: number | null) => (v === null ? "—" : v < 1e-4 ? "< 0.0001" : v.toFixed(4));
@@ -33,7 +34,7 @@ function comparisons(data: ReportData, figures: Figures): string {
         [false, true, true, true, true, true, true, true, true],
       );
       const warnings = c.warnings.length ? list(c.warnings) : "";
-      return `<section class="analysis"><h3>Comparison #${c.analysis_id}: ${escapeHtml(c.metric)} by ${escapeHtml(c.by)} (${escapeHtml(c.channel)})</h3>${groups}${contrasts}${warnings}${settingsBlock(`Settings of comparison #${prov.analysisId}: engine ${prov.engineVersion}, stored ${prov.createdAt}`, { request: prov.settings, resolved: c.settings })}${figuresHtml(figures(`comparison:${c.analysis_id}`))}</section>`;
+      return `<section class="analysis"><h3>Comparison #${c.analysis_id}: ${escapeHtml(c.metric)} by ${escapeHtml(c.by)} (${escapeHtml(c.channel)})</h3>${analysisInputsHtml(c)}${groups}${contrasts}${warnings}${settingsBlock(`Settings of comparison #${prov.analysisId}: engine ${prov.engineVersion}, stored ${prov.createdAt}`, { request: prov.settings, resolved: c.settings })}${figuresHtml(figures(`comparison:${c.analysis_id}`))}</section>`;
     })
     .join("");
 }
@@ -59,7 +60,7 @@ function trackingSummary(t: ReportData["trackings"][number]["response"]): string
 
 function trackings(data: ReportData, figures: Figures): string {
   return data.trackings
-    .map(({ response: t, provenance: prov }) => `<section class="analysis"><h3>Tracking #${t.analysis_id}: over ${escapeHtml(t.over)} (${escapeHtml(t.channel)})</h3>${list(trackingSummary(t))}${settingsBlock(`Settings of tracking analysis #${prov.analysisId}: engine ${prov.engineVersion}, stored ${prov.createdAt}`, { request: prov.settings, resolved: t.result.settings })}${figuresHtml(figures(`tracking:${t.analysis_id}`))}</section>`)
+    .map(({ response: t, provenance: prov }) => `<section class="analysis"><h3>Tracking #${t.analysis_id}: over ${escapeHtml(t.over)} (${escapeHtml(t.channel)})</h3>${analysisInputsHtml(t)}${list(trackingSummary(t))}${settingsBlock(`Settings of tracking analysis #${prov.analysisId}: engine ${prov.engineVersion}, stored ${prov.createdAt}`, { request: prov.settings, resolved: t.result.settings })}${figuresHtml(figures(`tracking:${t.analysis_id}`))}</section>`)
     .join("");
 }
 
@@ -67,7 +68,7 @@ function plans(data: ReportData, figures: Figures): string {
   return data.plans
     .map(({ response: r, provenance: prov }) => {
       const table = htmlTable(["embryos per group", "power, exact", "power, normal approximation", "power, simulated", "power, simulated permutation test"], r.table.map((row) => [row.n, row.power_analytic.toFixed(3), row.power_normal.toFixed(3), row.power_simulated.toFixed(3), row.power_permutation_simulated?.toFixed(3)]), [true, true, true, true, true]);
-      return `<section class="analysis"><h3>Sample-size plan #${r.analysis_id}: ${escapeHtml(r.metric)}${r.group ? ` (variability of ${escapeHtml(r.group)})` : ""}</h3>${list([`${r.n_required}${r.capped ? " or more (search capped)" : ""} embryos per group to detect a ${formatNumber(r.settings.effect * 100)}% change with power ${r.settings.power} at α = ${r.settings.alpha}.`, `Method: ${r.formula}.`, ...r.notes])}${table}${settingsBlock(`Settings of plan #${prov.analysisId}: engine ${prov.engineVersion}, stored ${prov.createdAt}`, { request: prov.settings, resolved: r.settings })}${figuresHtml(figures(`plan:${r.analysis_id}`))}</section>`;
+      return `<section class="analysis"><h3>Sample-size plan #${r.analysis_id}: ${escapeHtml(r.metric)}${r.group ? ` (variability of ${escapeHtml(r.group)})` : ""}</h3>${list([`${r.n_required}${r.capped ? " or more (search capped)" : ""} embryos per group to detect a ${formatNumber(r.settings.effect * 100)}% change with power ${r.settings.power} at α = ${r.settings.alpha}.`, `Method: ${r.formula}.`, ...r.notes])}${analysisInputsHtml(r)}${table}${settingsBlock(`Settings of plan #${prov.analysisId}: engine ${prov.engineVersion}, stored ${prov.createdAt}`, { request: prov.settings, resolved: r.settings })}${figuresHtml(figures(`plan:${r.analysis_id}`))}</section>`;
     })
     .join("");
 }

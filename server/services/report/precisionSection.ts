@@ -3,6 +3,7 @@ import { figureHtml, type EmbeddedFigure } from "./embeddedFigure.ts";
 import { escapeHtml } from "./escapeHtml.ts";
 import type { GroupReport } from "./gatherReport.ts";
 import { settingsBlock } from "./settingsBlock.ts";
+import { leftOutHtml } from "./analysisInputsHtml.ts";
 
 const bits = (v: number | null, ci: readonly [number, number] | null | undefined) => (v === null ? "—" : `${formatNumber(v)} bits ${formatInterval(ci)}`.trim());
 
@@ -24,5 +25,5 @@ export function precisionSection(g: GroupReport, bootstrap: number, figures: Emb
   const warnings = p.warnings.length ? `<ul class="warnings">${p.warnings.map((w) => `<li>${escapeHtml(w.message)}${w.fix ? ` — ${escapeHtml(w.fix)}` : ""}</li>`).join("")}</ul>` : "";
   const ran = prov.runByReport ? `<p class="note">No precision analysis of this group was stored, so this report ran one with the default settings and ${bootstrap} bootstrap resamples (fewer than the default 1000, to keep the report quick); its intervals are correspondingly rougher.</p>` : "";
   const settings = settingsBlock(`Settings of precision analysis #${prov.analysisId}: engine ${prov.engineVersion}, stored ${prov.createdAt}${prov.runByReport ? ", run by this report" : ""}`, { request: prov.settings, resolved: p.settings });
-  return `<section class="group">${head}${ran}<ul>${items.map((i) => `<li>${escapeHtml(i)}</li>`).join("")}</ul>${warnings}${settings}<div class="figures">${figures.map(figureHtml).join("")}</div></section>`;
+  return `<section class="group">${head}${ran}<ul>${items.map((i) => `<li>${escapeHtml(i)}</li>`).join("")}</ul>${leftOutHtml(p.left_out)}${warnings}${settings}<div class="figures">${figures.map(figureHtml).join("")}</div></section>`;
 }
