@@ -30,13 +30,16 @@ are stored in the database like any other run.
   --genotype G[,G2…]    only these genotypes (default: all)
   --channel C[,C2…]     only these channels (default: all)
   --bootstrap N         resamples of a precision analysis the report runs itself (default 200)
+  --fits NAME           only this fit setting's fits, comparisons, tracking analyses and plans
+                        (default: all, each naming the setting it used)
 ${COMMON_HELP}
 
 With --json: the list of files written.`,
-  options: { ...COMMON_OPTIONS, out: { type: "string" }, genotype: { type: "string" }, channel: { type: "string" }, bootstrap: { type: "string" } },
+  options: { ...COMMON_OPTIONS, out: { type: "string" }, genotype: { type: "string" }, channel: { type: "string" }, bootstrap: { type: "string" }, fits: { type: "string" } },
   async run(values, _positionals, io) {
     const parsed = ReportOptions.safeParse({
       genotypes: list(values.genotype as string | undefined),
+      fits: values.fits,
       channels: list(values.channel as string | undefined),
       bootstrap: numberOption("bootstrap", values.bootstrap as string | undefined),
     });

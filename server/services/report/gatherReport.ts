@@ -1,4 +1,6 @@
 import { getAnalysis, listAnalyses, type StoredAnalysis } from "../../../db/analyses.ts";
+import { findFitSetting } from "../../../db/fitSettings.ts";
+import { assignMissingFitSettings } from "../fits/fitSettings.ts";
 import type { Db } from "../../../db/connection.ts";
 import { listFitItems, type FitListItem } from "../../../db/fits.ts";
 import { listImports, type ImportRow } from "../../../db/imports.ts";
@@ -130,8 +132,9 @@ function precisionFor(db: Db, genotype: string, channel: string, bootstrap: numb
 }
 
 /** Newest stored analyses of a kind whose channel is reported, answered as their jobs answered. */
-function storedOfKind<T>(db: Db, kind: "comparison" | "tracking" | "plan", channels: string[], respond: (a: StoredAnalysis) => T) {
+function storedOfKind<T>(db: Db, kind: "comparison" | "tracking" | "plan", channels: string[], respond: (a: StoredAnalysis) => T, fits: string | undefined) {
   return listAnalyses(db, kind)
+    .filter((a) => fits === undefined || (a.settings as { fitSetting?: { name: string } }).fitSetting?.name === fits)
     // A spread plan has no channel: it is kept whatever channels are reported.
     .filter((a) => {
       const channel = (a.selection as { channel?: string | null }).channel ?? null;
@@ -150,6 +153,10 @@ function storedOfKind<T>(db: Db, kind: "comparison" | "tracking" | "plan", chann
  * settings and `bootstrap` resamples. Both are stored, like any other run.
  */
 export function gatherReport(db: Db, options: ReportOptions, progress: ProgressCallback = () => {}): ReportData {
+  if (options.fits !== undefined) {
+    assignMissingFitSettings(db);
+    if (!findFitSetting(db, { name: options.fits })) throw new UserError("unknown-fit-setting", `No fit setting is named "${options.fits}" (see morphogauge fits settings).`, { status: 404, issues: [{ path: "fits", message: "unknown fit setting" }] });
+  }
   const genotypes = chosen("genotype", options.genotypes, distinctValues(db, "genotype"));
   const channels = chosen("channel", options.channels, distinctValues(db, "channel"));
   const pairs = genotypes.flatMap((genotype) => channels.map((channel) => ({ genotype, channel, profiles: listProfiles(db, { genotype, channel }) }))).filter((p) => p.profiles.length > 0);
@@ -158,7 +165,7 @@ export function gatherReport(db: Db, options: ReportOptions, progress: ProgressC
   const groups = pairs.map(({ genotype, channel, profiles }, i) => {
     progress(i / pairs.length, `fitting ${genotype} / ${channel}`);
     const fittedByReport = fitMissing(db, genotype, channel);
-    const fits = listFitItems(db, { genotype, channel });
+    const fits = listFitItems(db, { genotype, channel, setting: options.fits });
     progress((i + 0.4) / pairs.length, `precision ${genotype} / ${channel}`);
     return { genotype, channel, profiles: profiles.length, fits, fittedByReport, globals: newestGlobals(db, genotype, channel), example: exampleFit(db, fits), ...precisionFor(db, genotype, channel, options.bootstrap) };
   });
@@ -168,9 +175,9 @@ export function gatherReport(db: Db, options: ReportOptions, progress: ProgressC
     channels,
     imports: listImports(db).filter((i) => importIds.has(i.id)),
     groups,
-    comparisons: storedOfKind(db, "comparison", channels, comparisonResponse),
-    trackings: storedOfKind(db, "tracking", channels, trackingResponse),
-    plans: storedOfKind(db, "plan", channels, planResponse),
+    comparisons: storedOfKind(db, "comparison", channels, comparisonResponse, options.fits),
+    trackings: storedOfKind(db, "tracking", channels, trackingResponse, options.fits),
+    plans: storedOfKind(db, "plan", channels, planResponse, options.fits),
     bootstrap: options.bootstrap,
   };
 }
