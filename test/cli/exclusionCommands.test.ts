@@ -1,4 +1,4 @@
-import { mkdtempSync } from "node:fs";
+import { mkdtempSync, readdirSync, readFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { beforeAll, describe, expect, it } from "vitest";
@@ -51,6 +51,15 @@ describe("exclude and include on the command line", () => {
     const listing = await cli("compare", "--channel", "glm", "--genotype", "wt,tardy", "--permutations", "199", "--bootstrap", "200");
     expect(listing.stdout).toContain("Left out (excluded): wt-03 (out of focus)");
     expect(listing.stdout).toMatch(/Fit setting: exponential \(exponential, whole profile, default options\)/);
+
+    // The report shows the stored comparison's setting, fit ids and who was left out.
+    const outDir = join(dir, "report");
+    await cli("report", "--out", outDir, "--genotype", "wt,tardy", "--channel", "glm", "--fits", "exponential", "--bootstrap", "100");
+    const html = readFileSync(join(outDir, readdirSync(outDir).find((f) => f.endsWith(".html"))!), "utf8");
+    const stored = await json("compare", "--channel", "glm", "--genotype", "wt,tardy", "--permutations", "199", "--bootstrap", "200");
+    expect(html).toContain("Fit setting <strong>exponential</strong>");
+    expect(html).toContain(stored.fit_ids.slice(0, 5).join(", "));
+    expect(html).toContain("Left out (excluded): wt-03 (out of focus).");
   });
 
   it("the exclusion is in the database file, and including the embryo again restores n and keeps the history", async () => {
