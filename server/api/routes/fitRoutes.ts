@@ -8,6 +8,7 @@ import { prepareFitInput, storeFitOutput } from "../../services/fits/fitService.
 import type { FitTaskOutput } from "../../services/fits/fitTask.ts";
 import { UserError } from "../../userError.ts";
 import { weightStoredFits } from "../../services/fits/weightStoredFits.ts";
+import { assignMissingFitSettings } from "../../services/fits/fitSettings.ts";
 import { defineRoute, IdParams } from "../route.ts";
 
 export const fitRoutes = [
@@ -34,8 +35,13 @@ export const fitRoutes = [
       channel: z.string().optional(),
       model: z.string().optional(),
       profileId: z.coerce.number().int().positive().optional(),
+      /** Only fits of this named fit setting. */
+      setting: z.string().min(1).optional(),
     }),
-    handler: ({ db, query }) => ({ fits: weightStoredFits(listFitItems(db, query)), caveat: steadyStateCaveat }),
+    handler: ({ db, query }) => {
+      assignMissingFitSettings(db);
+      return { fits: weightStoredFits(listFitItems(db, query)), caveat: steadyStateCaveat };
+    },
   }),
   defineRoute({
     method: "get",
