@@ -18,7 +18,7 @@ describe("GET /api/exports/:table.csv", () => {
   beforeAll(async () => {
     s = await startTestServer({ demo: true });
     seeded = seedAnalyses(s.db);
-  });
+  }, 180_000);
   afterAll(async () => s.close());
 
   const csv = async (path: string) => {

@@ -13,6 +13,7 @@ import { CompareRequest } from "../../../server/services/groups/compareRequest.t
 import { prepareComparison, storeComparison } from "../../../server/services/groups/compareService.ts";
 import { runCompareTask } from "../../../server/services/groups/compareTask.ts";
 import { isUserError, type UserError } from "../../../server/userError.ts";
+import { inputsTable } from "../../../server/services/exports/inputsTable.ts";
 
 function fit(db: Db, request: object) {
   const input = prepareFitInput(db, FitRequest.parse(request));
@@ -99,6 +100,12 @@ describe("fit settings in group analyses", () => {
     expect(again.groups).toEqual(first.groups);
     expect(again.contrasts).toEqual(first.contrasts);
     expect(again.embryo_values).toEqual(first.embryo_values);
+
+    // inputs.csv lists one row per profile used, with its fit id and the setting.
+    const table = inputsTable(db, first.analysis_id);
+    const used = table.rows.filter((r) => r[0] === "used");
+    expect(used.map((r) => r[table.columns.indexOf("fit_id")])).toEqual(first.fit_ids);
+    expect(new Set(used.map((r) => r[table.columns.indexOf("fit_setting")]))).toEqual(new Set(["posterior-window"]));
     db.close();
   });
 
