@@ -16,7 +16,7 @@ describe("GET /api/figures/:kind", () => {
   beforeAll(async () => {
     s = await startTestServer({ demo: true });
     seeded = seedAnalyses(s.db);
-  });
+  }, 180_000);
   afterAll(async () => s.close());
 
   const get = (path: string) => fetch(`${s.url}${path}`);
