@@ -6,8 +6,9 @@ import { errorHandler, notFoundHandler } from "./httpError.ts";
 import { mountRoutes } from "./mountRoutes.ts";
 import { openApiDocument } from "./openApiDocument.ts";
 import { ALL_ROUTES } from "./routes/allRoutes.ts";
+import { TOOL_VERSION } from "../version.ts";
 
-export const API_VERSION = "0.1.0";
+export const API_VERSION = TOOL_VERSION;
 
 export interface AppOptions {
   db: Db;
