@@ -139,6 +139,20 @@ describe("analysis commands on the demo database", () => {
     expect(out.table.length).toBeGreaterThan(0);
   });
 
+  it("plan without --group uses the most variable selected genotype and names it", async () => {
+    // common practice, no source: the conservative default plans for the group hardest to measure.
+    const out = await json("plan", "--effect", "0.15", "--channel", "glm", "--genotype", "wt,tardy");
+    const v = out.variability_group;
+    expect(v.rule).toBe("most_variable");
+    expect(v.candidates.map((c: { group: string }) => c.group).sort()).toEqual(["tardy", "wt"]);
+    expect(v.cv).toBe(Math.max(...v.candidates.map((c: { cv: number }) => c.cv)));
+    expect(out.cv).toBeCloseTo(v.cv, 12);
+    expect(out.group).toBe(v.group);
+    const text = (await cli("plan", "--effect", "0.15", "--channel", "glm", "--genotype", "wt,tardy")).stdout;
+    expect(text).toContain(`Used the variability from "${v.group}"`);
+    expect(text).toContain("most variable");
+  });
+
   it("analysis commands name a wrong genotype or channel plainly", async () => {
     const r = await runCliInProcess(["fit", "--genotype", "nonesuch", "--db", db], {}, dir);
     expect(r.code).toBe(1);

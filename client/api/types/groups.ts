@@ -134,4 +134,6 @@ export interface PlanResult {
   table: { n: number; power_analytic: number; power_normal: number; power_simulated: number; power_permutation_simulated: number | null }[];
   formula: string;
   notes: string[];
+  /** Which group's variability was used and why (null for a spread plan). */
+  variability_group: { group: string; n: number; cv: number; rule: "chosen" | "most_variable"; candidates: { group: string; n: number; cv: number }[]; sentence: string } | null;
 }
