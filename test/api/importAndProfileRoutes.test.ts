@@ -37,8 +37,9 @@ describe("import and profile API", () => {
     expect(r.status).toBe(200);
     const body = await r.json();
     expect(body.files.map((f: { status: string }) => f.status)).toEqual(["imported", "rejected"]);
-    const again = await (await fetch(`${s.url}/api/imports`, { method: "POST", body: uploadForm({ "good.csv": good }) })).json();
+    const again = await (await fetch(`${s.url}/api/imports`, { method: "POST", body: uploadForm({ "good.csv": good }, { channel: "glm" }) })).json();
     expect(again.files[0].status).toBe("already-imported");
+    expect(again.files[0].message).toContain("with the same options and side file");
     const onlyBad = await fetch(`${s.url}/api/imports`, { method: "POST", body: uploadForm({ "bad.csv": bad }) });
     expect(onlyBad.status).toBe(422);
   });
@@ -83,7 +84,7 @@ describe("import and profile API", () => {
     const imports = (await (await fetch(`${s.url}/api/imports`)).json()).imports;
     const last = imports.at(-1);
     const r = await (await fetch(`${s.url}/api/imports/${last.id}`, { method: "DELETE" })).json();
-    expect(r.deleted).toEqual({ profiles: 2, embryos: 2 });
+    expect(r.deleted).toEqual({ profiles: 2, embryos: 2, valuesRestored: 0 });
     expect((await (await fetch(`${s.url}/api/profiles`)).json()).total).toBe(1);
     expect((await fetch(`${s.url}/api/imports/${last.id}`, { method: "DELETE" })).status).toBe(404);
     expect((await fetch(`${s.url}/api/imports/abc`, { method: "DELETE" })).status).toBe(400);
