@@ -83,10 +83,10 @@ function importOne(db: Db, file: SourceFile, options: ResolvedImportOptions, met
 function joinedNote(storedLabels: string[], added: ParsedImport["profiles"]): string {
   if (storedLabels.length === 0) return "";
   const stored = new Set(storedLabels);
-  const channels = [...new Set(added.filter((p) => stored.has(p.embryo)).map((p) => p.channel))].map((c) => `"${c}"`).join(", ");
+  const joined = added.filter((p) => stored.has(p.embryo));
+  const gained = new Set(joined.map((p) => p.embryo)).size;
+  const channels = [...new Set(joined.map((p) => p.channel))].map((c) => `"${c}"`).join(", ");
   const n = storedLabels.length;
   return `; ${n} embryo${n === 1 ? " was" : "s were"} already stored under the same label` +
-    (channels ? ` and gained profiles of channel ${channels} — if these are different embryos, delete this import and use a label prefix` : "");
+    (gained > 0 ? ` and ${gained === n ? "" : `${gained} of them `}gained profiles of channel ${channels} — if these are different embryos, delete this import and use a label prefix` : "");
 }
-
-export type { ConflictChoice } from "./imports/resolveImport.ts";

@@ -108,7 +108,7 @@ export function importPanel(onImported: () => void): HTMLElement {
       );
       previewed = ok > 0;
       confirm.disabled = !previewed;
-      confirm.textContent = ok === 1 ? "Import 1 file" : `Import ${ok} files`;
+      confirm.textContent = ok === 0 ? "Import" : ok === 1 ? "Import 1 file" : `Import ${ok} files`;
     } catch (e) {
       if (mine === request) replaceChildren(previewArea, errorNotice(e));
     }
