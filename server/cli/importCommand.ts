@@ -102,7 +102,7 @@ ${COMMON_HELP}`,
     const sorted = sortSourceFiles(given, values.meta === undefined ? undefined : read(values.meta as string), parsed.data);
     const { db } = await openCliDatabase(values.db as string | undefined, io);
     try {
-      refuseDemoImport(db, "cli");
+      refuseDemoImport(db, "cli", values.db === undefined ? io.env : {});
       const reports = importFiles(db, sorted.profiles, parsed.data, sorted.meta, onConflict);
       if (values.json) io.stdout(JSON.stringify({ files: reports, notes: sorted.notes }, null, 2) + "\n");
       else {

@@ -131,5 +131,29 @@ describe("import --on-conflict", () => {
     expect(r.code).toBe(1);
     expect(r.stderr).toContain("This database holds the invented demo data; your files go into your own database");
     expect(t.snapshot()).toEqual(before);
+    const viaEnv = await runCliInProcess(["import", "a.csv"], { MORPHOGAUGE_DB: t.db }, t.dir);
+    expect(viaEnv.stderr).toContain("$MORPHOGAUGE_DB names the demo's file: unset it or pass --db");
+  });
+
+  it("the demo is never poured into a database that holds the lab's imports", async () => {
+    const t = setup();
+    t.file("a.csv", first);
+    expect((await t.cli("import", "a.csv")).code).toBe(0);
+    const before = t.snapshot();
+    const r = await t.cli("demo");
+    expect(r.code).toBe(1);
+    expect(r.stderr).toContain("This database holds your own imports; the invented demo data goes into a database of its own");
+    expect(t.snapshot()).toEqual(before);
+  });
+});
+
+describe("no position column in a large file", () => {
+  it("a long table over 256 kB without a position column is refused naming its columns, from its first lines", async () => {
+    const t = setup();
+    const rows = Array.from({ length: 30_000 }, (_, i) => `e${i % 300},${i},${(i * 7) % 101}`);
+    t.file("big.csv", "embryo,A,intensity\n" + rows.join("\n") + "\n");
+    const r = await t.cli("import", "big.csv");
+    expect(r.code).toBe(1);
+    expect(r.stdout).toContain('no position column found (columns seen: "embryo", "A", "intensity")');
   });
 });

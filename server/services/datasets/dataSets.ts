@@ -65,7 +65,9 @@ export class DataSets {
   /** The demo, the lab's file, and every other morphogauge database of the lab's in the same folder. */
   list(): DataSetEntry[] {
     const entry = (path: string, kind: DatasetKind, id = basename(path)): DataSetEntry => ({ id, path, kind, current: path === this.currentPath, exists: this.opened.has(path) || existsSync(path) });
-    const out = [entry(this.config.demoPath, "demo", "demo"), entry(this.config.userPath, "user")];
+    const out = [entry(this.config.demoPath, "demo", "demo")];
+    // $MORPHOGAUGE_DB may name the demo's file (the README tour sets it so): then there is no separate file of the lab's yet.
+    if (this.config.userPath !== this.config.demoPath) out.push(entry(this.config.userPath, "user"));
     const folder = dirname(this.config.userPath);
     let names: string[] = [];
     try {

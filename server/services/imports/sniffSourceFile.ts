@@ -5,8 +5,8 @@ import type { ResolvedImportOptions } from "../../import/importOptions.ts";
 import { looksLikeDecimalComma, readNumericCell } from "../../import/numericCell.ts";
 import { isUserError } from "../../userError.ts";
 
-/** Side files hold one row per embryo; a file larger than this is taken to be profiles, unread. */
-const LARGEST_SIDE_FILE_BYTES = 2 * 1024 * 1024;
+/** Side files hold one row per embryo; of a larger file only the start is read, which tells the header and first column. */
+const SNIFF_BYTES = 256 * 1024;
 
 /** What a file given for import holds, judged from its header and first column before anything is parsed in full. */
 export type SniffedFile =
@@ -19,14 +19,22 @@ export type SniffedFile =
 /**
  * Tell profiles from a side file: a profile table has a position column (long)
  * or positions as numbers in its first column (wide); a side file has neither,
- * and a different embryo label on every row. Problems of the table itself are
+ * and a different embryo label on every row. Of a large file only the first
+ * 256 kB are read. Problems of the table itself are
  * left to the parser, which names them by row and column.
  */
 export function sniffSourceFile(file: { name: string; bytes: Uint8Array }, options: Pick<ResolvedImportOptions, "delimiter" | "decimalMark" | "labelPrefix">): SniffedFile {
-  if (file.bytes.length > LARGEST_SIDE_FILE_BYTES) return { kind: "profiles" };
+  let bytes = file.bytes;
+  if (bytes.length > SNIFF_BYTES) {
+    // UTF-16 files are left to the parser; in any other encoding a line ends at byte 0x0A.
+    if ((bytes[0] === 0xff && bytes[1] === 0xfe) || (bytes[0] === 0xfe && bytes[1] === 0xff)) return { kind: "profiles" };
+    const end = bytes.subarray(0, SNIFF_BYTES).lastIndexOf(0x0a);
+    if (end <= 0) return { kind: "profiles" };
+    bytes = bytes.subarray(0, end + 1);
+  }
   let table;
   try {
-    table = readDelimitedTable(decodeText(file.bytes, file.name), file.name, options.delimiter);
+    table = readDelimitedTable(decodeText(bytes, file.name), file.name, options.delimiter);
   } catch (e) {
     if (isUserError(e)) return { kind: "profiles" };
     throw e;
