@@ -22,10 +22,10 @@ describe("morphogauge command line", () => {
     });
   }
 
-  it("morphogauge demo then list --json gives the demo embryos, on the database named by MORPHOGAUGE_DB", async () => {
+  it("morphogauge demo fills the demo's own database (MORPHOGAUGE_DEMO_DB), and list --json on it gives the demo embryos", async () => {
     const dir = tmp();
-    const env = { MORPHOGAUGE_DB: join(dir, "env.db") };
-    const demo = await runCliInProcess(["demo", "--json"], env, dir);
+    const env = { MORPHOGAUGE_DEMO_DB: join(dir, "demo.db"), MORPHOGAUGE_DB: join(dir, "demo.db") };
+    const demo = await runCliInProcess(["demo", "--json"], { MORPHOGAUGE_DEMO_DB: env.MORPHOGAUGE_DEMO_DB }, dir);
     expect(demo.code).toBe(0);
     const out = JSON.parse(demo.stdout);
     expect(out.files.map((f: { status: string }) => f.status)).toEqual(["imported", "imported"]);
