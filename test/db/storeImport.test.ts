@@ -73,7 +73,7 @@ describe("storing imports", () => {
     importFiles(db, [{ name: "b.csv", bytes: wide(["E1", "E2"], 5) }], opts({ channel: "vellin" }));
     const second = listImports(db)[1];
     expect(second).toMatchObject({ fileName: "b.csv", profiles: 2, embryos: 2 });
-    expect(deleteImport(db, second.id)).toEqual({ profiles: 2, embryos: 1 });
+    expect(deleteImport(db, second.id)).toEqual({ profiles: 2, embryos: 1, valuesRestored: 0 });
     expect(databaseSnapshot(db).counts).toEqual(afterFirst.counts);
     expect(deleteImport(db, 999)).toBeNull();
   });
@@ -101,18 +101,18 @@ describe("storing imports", () => {
   it("openDatabase copies an older database aside before applying a newer migration", async () => {
     const dir = mkdtempSync(join(tmpdir(), "mg-"));
     const path = join(dir, "v1.db");
-    const current = loadMigrations();
-    const v1 = await openDatabase(path, current);
+    const v1 = await openDatabase(path);
     importFiles(v1.db, [{ name: "a.csv", bytes: wide(["E1"]) }], opts());
     v1.db.close();
-    const last = current.at(-1)!.version;
-    const next = [...current, { version: last + 1, name: "999_test.sql", sql: "ALTER TABLE embryos ADD COLUMN note TEXT;" }];
+    const current = loadMigrations().at(-1)!.version;
+    const version = current + 1;
+    const next = [...loadMigrations(), { version, name: `${String(version).padStart(3, "0")}_test.sql`, sql: "ALTER TABLE embryos ADD COLUMN note TEXT;" }];
     const v2 = await openDatabase(path, next);
-    expect(v2.migrated).toEqual([last + 1]);
-    expect(v2.backupPath).toBe(`${path}.before-schema-${last + 1}`);
+    expect(v2.migrated).toEqual([version]);
+    expect(v2.backupPath).toBe(`${path}.before-schema-${version}`);
     v2.db.close();
-    const copy = new Database(`${path}.before-schema-${last + 1}`, { readonly: true });
-    expect(copy.pragma("user_version", { simple: true })).toBe(last);
+    const copy = new Database(`${path}.before-schema-${version}`, { readonly: true });
+    expect(copy.pragma("user_version", { simple: true })).toBe(current);
     expect(copy.prepare("SELECT COUNT(*) AS n FROM profiles").get()).toEqual({ n: 1 });
     copy.close();
   });

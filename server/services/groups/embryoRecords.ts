@@ -1,6 +1,6 @@
 import type { Db } from "../../../db/connection.ts";
 import { distinctValues, loadProfiles, type ProfileData } from "../../../db/profiles.ts";
-import { boundaryPosition, defaultBoundaryThreshold } from "../../analysis/compare/boundaryPosition.ts";
+import { defaultBoundaryThreshold, readBoundary } from "../../analysis/compare/boundaryPosition.ts";
 import type { EmbryoRecord } from "../../analysis/compare/embryoRecord.ts";
 import type { FitSettingSummary } from "../fits/fitSettings.ts";
 import { applyExclusions, type LeftOut } from "../exclusions/exclusionService.ts";
@@ -73,7 +73,7 @@ export function gatherEmbryoRecords(db: Db, request: RecordsRequest, referenceGr
     const fit = fits.fitByProfile.get(p.profileId)!;
     const r = fit.result as { fit: { ok: boolean; parameters?: Record<string, { value: number; se: number | null }> } };
     const params = r.fit.ok ? r.fit.parameters! : {};
-    const boundary = boundaryPosition(p.positionsUm, p.intensities, threshold.value);
+    const boundary = readBoundary(p.positionsUm, p.intensities, threshold.value);
     const background = params.background?.value;
     const amplitude = params.amplitude?.value;
     return {
@@ -86,7 +86,9 @@ export function gatherEmbryoRecords(db: Db, request: RecordsRequest, referenceGr
       // The comparison layer subtracts the background itself, so pass the amplitude including it.
       amplitude: amplitude !== undefined && background !== undefined ? amplitude + background : amplitude,
       background,
-      boundaryUm: boundary ?? undefined,
+      boundaryUm: boundary.kind === "crossed" ? boundary.positionUm : undefined,
+      boundaryCensored: boundary.kind === "crossed" ? undefined : boundary.kind,
+      boundaryLimitUm: boundary.kind === "crossed" ? undefined : boundary.limitUm,
       lengthUm: p.lengthUm ?? undefined,
       stage: stageValue(p.stage),
       ageS: p.ageS ?? undefined,
