@@ -125,15 +125,18 @@ export function modelPreference(profiles: readonly PreferenceProfile[], aicc: Ai
   const total: Record<string, number> = {};
   for (const g of groups) for (const [m, v] of Object.entries(g.summed_aicc)) total[m] = (total[m] ?? 0) + v;
   const bestOverall = groups.every((g) => g.n_summed > 0) ? Object.entries(total).reduce<string | null>((b, [m, v]) => (b === null || v < total[b] ? m : b), null) : null;
-  const warnings: string[] = [];
+  // One warning per preferred model, naming every group that prefers it, so many groups do not mean many notices.
+  const byModel = new Map<string, string[]>();
   for (const g of groups) {
     if (g.preferred === null || g.preferred === usedModel) continue;
-    const s = g.weight_share[g.preferred];
-    if (s <= MAJORITY) continue;
-    warnings.push(
-      `AICc prefers the ${g.preferred} model for most ${g.group} profiles (summed Akaike weight ${s.toFixed(2)} of 1; ${(g.weight_share[usedModel] ?? 0).toFixed(2)} for ${usedModel}, the model used). ` +
-        `λ from ${usedModel} fits may be biased here; compare with fits of ${g.preferred} (--fit-model ${g.preferred}) or let the groups choose one model by summed AICc (--fit-model best).`,
-    );
+    const share = g.weight_share[g.preferred];
+    if (share <= MAJORITY) continue;
+    byModel.set(g.preferred, [...(byModel.get(g.preferred) ?? []), `${g.group} (${share.toFixed(2)}; ${(g.weight_share[usedModel] ?? 0).toFixed(2)} for ${usedModel})`]);
   }
+  const warnings = [...byModel].map(
+    ([model, groupsText]) =>
+      `AICc prefers the ${model} model for most profiles of ${groupsText.join(", ")} — summed Akaike weight of 1 per group; ${usedModel} is the model used. ` +
+      `λ from ${usedModel} fits may be biased here; compare with fits of ${model} (--fit-model ${model}) or let the groups choose one model by summed AICc (--fit-model best).`,
+  );
   return { used_model: usedModel, models_compared: models, groups, best_overall: bestOverall, warnings };
 }

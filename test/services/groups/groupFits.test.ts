@@ -131,7 +131,7 @@ describe("model awareness in group analyses", () => {
     expect(["finite", "source"]).toContain(tardy.preferred);
     expect(tardy.weight_share[tardy.preferred!]).toBeGreaterThan(0.5);
     expect(tardy.weight_share.exponential).toBeLessThan(0.5);
-    expect(plain.model_preference!.warnings.some((w) => w.includes(`prefers the ${tardy.preferred} model for most tardy profiles`))).toBe(true);
+    expect(plain.model_preference!.warnings.some((w) => w.includes(`prefers the ${tardy.preferred} model for most profiles of`) && w.includes("tardy ("))).toBe(true);
 
     const best = compare(db, { selection: { genotypes: ["wt", "tardy"] }, fitModel: "best" });
     expect(best.fit_setting?.model).toBe(best.model_preference!.best_overall);
