@@ -29,7 +29,7 @@ const order = (errors: number[]) => errors.slice(1).map((e, i) => Math.log2(erro
 
 describe("solveReactionDiffusion: pure diffusion", () => {
   it("spreads a point source as a Gaussian whose variance grows by exactly 2Dt", () => {
-    // Source: textbook diffusion (Crank 1975, The Mathematics of Diffusion, eq. 2.6): variance 2Dt.
+    // Source: textbook diffusion (heat kernel, variance 2Dt); value from memory.
     const cells = 201;
     const h = 100 / cells;
     const initial = new Float64Array(cells);
@@ -52,7 +52,7 @@ describe("solveReactionDiffusion: pure diffusion", () => {
   });
 
   it("converges to the Gaussian at second order in space and time (errors shrink ~4× per halving)", () => {
-    // Source: heat kernel, variance 2D(t0 + t) (Crank 1975, eq. 2.6); Crank–Nicolson is second order.
+    // Source: heat kernel, variance 2D(t0 + t) (textbook); Crank–Nicolson is second order (Crank & Nicolson 1947).
     const d = 1;
     const t0 = 5;
     const t = 10;
@@ -72,7 +72,7 @@ describe("solveReactionDiffusion: pure diffusion", () => {
   });
 
   it("relaxes a step to ½·erfc at short times and to ½ everywhere at long times, without ringing", () => {
-    // Source: Crank 1975, eq. 2.14 (extended initial distribution): ½·erfc(x/√(4Dt)); conservation gives ½ at t → ∞.
+    // Source: textbook step solution ½·erfc(x/√(4Dt)) (science notes §2); conservation gives ½ at t → ∞.
     const cells = 400;
     const initial = new Float64Array(cells).map((_, i) => (i < cells / 2 ? 1 : 0));
     const run = solveReactionDiffusion(base({ cells, initial }), [20, 20_000], SolverSettings.parse({ stepS: 1 }));
