@@ -9,6 +9,10 @@ import { importCommand } from "./importCommand.ts";
 import { listCommand } from "./listCommand.ts";
 import { reportCommand } from "./reportCommand.ts";
 import { serveCommand } from "./serveCommand.ts";
+import { dynamicsCommand } from "./dynamicsCommand.ts";
+import { frapCommand } from "./frapCommand.ts";
+import { combineCommand } from "./combineCommand.ts";
+import { simulateCommand } from "./simulateCommand.ts";
 
 /** Every sub-command, in the order the help lists them. */
-export const COMMANDS: Command[] = [importCommand, listCommand, demoCommand, fitCommand, precisionCommand, compareCommand, trackCommand, planCommand, reportCommand, serveCommand];
+export const COMMANDS: Command[] = [importCommand, listCommand, demoCommand, fitCommand, precisionCommand, compareCommand, trackCommand, planCommand, dynamicsCommand, frapCommand, combineCommand, simulateCommand, reportCommand, serveCommand];

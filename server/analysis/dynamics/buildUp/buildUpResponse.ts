@@ -1,5 +1,6 @@
 import type { BuildUpFitOptions } from "./buildUpFitOptions.ts";
 import { influxBuildUp } from "./influxBuildUp.ts";
+import { cellValueAt } from "../solver/cellValueAt.ts";
 import { solveReactionDiffusion } from "../solver/solveReactionDiffusion.ts";
 import { SolverSettings } from "../solver/solverSettings.ts";
 import type { ReactionDiffusionProblem } from "../solver/reactionDiffusionProblem.ts";
@@ -50,10 +51,7 @@ export function buildUpResponse(data: BuildUpData, d: number, k: number, options
   const h = lengthUm / cells;
   for (let i = 0; i < n; i++) {
     const c = byTime.get(data.tS[i])!;
-    const pos = Math.min(Math.max(data.xUm[i] / h - 0.5, 0), cells - 1);
-    const j = Math.min(Math.floor(pos), cells - 2);
-    const f = pos - j;
-    out[i] = c[j] * (1 - f) + c[j + 1] * f;
+    out[i] = cellValueAt(c, data.xUm[i], h);
   }
   return out;
 }

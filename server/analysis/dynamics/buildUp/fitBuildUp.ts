@@ -5,6 +5,7 @@ import { tQuantile95 } from "../../fit/tQuantile95.ts";
 import { solveLinear } from "../../linalg/solveLinear.ts";
 import { levenbergMarquardt } from "../leastSquares.ts";
 import { accumulationTimes } from "../solver/accumulationTimes.ts";
+import { cellValueAt } from "../solver/cellValueAt.ts";
 import { SolverSettings } from "../solver/solverSettings.ts";
 import { accumulationTime } from "./accumulationTime.ts";
 import type { BuildUpFitOptions } from "./buildUpFitOptions.ts";
@@ -175,12 +176,7 @@ export function fitBuildUp(data: BuildUpData, options: BuildUpFitOptions): Build
       SolverSettings.parse({ tolerance: 1e-6 }),
     );
     const h = lengthUm / cells;
-    return positions.map((x) => {
-      const pos = Math.min(Math.max(x / h - 0.5, 0), cells - 1);
-      const j = Math.min(Math.floor(pos), cells - 2);
-      const f = pos - j;
-      return prof.timesS[j] * (1 - f) + prof.timesS[j + 1] * f;
-    });
+    return positions.map((x) => cellValueAt(prof.timesS, x, h));
   };
   const tau0 = tauAt(logD, logK);
   const e = 1e-4;
