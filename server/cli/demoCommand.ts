@@ -1,4 +1,4 @@
-import { loadDemoData } from "../services/demoData.ts";
+import { loadDemoData, loadDynamicsDemo } from "../services/demoData.ts";
 import { COMMON_HELP, COMMON_OPTIONS, type Command } from "./command.ts";
 import { openCliDatabase } from "./openCliDatabase.ts";
 
@@ -8,7 +8,9 @@ export const demoCommand: Command = {
   help: `Usage: morphogauge demo [options]
 
 Imports the demo data (fixtures/): glimmerin profiles of a fictional lab,
-three genotypes plus a dosage series, invented for trying the tool out.
+three genotypes plus a dosage series, and a build-up time course of a live
+reporter (channel glm-gfp; FRAP curves of it are in fixtures/glimmerin_frap_cell*.csv),
+invented for trying the tool out.
 Running it twice adds nothing the second time.
 
 ${COMMON_HELP}`,
@@ -16,7 +18,7 @@ ${COMMON_HELP}`,
   async run(values, _positionals, io) {
     const { db, path } = await openCliDatabase(values.db as string | undefined, io);
     try {
-      const reports = loadDemoData(db);
+      const reports = [...loadDemoData(db), ...loadDynamicsDemo(db)];
       if (values.json) io.stdout(JSON.stringify({ database: path, files: reports }, null, 2) + "\n");
       else {
         for (const r of reports) io.stdout(`${r.status === "rejected" ? "✗" : "✓"} ${r.file}: ${r.status === "rejected" ? r.error.message : r.message}\n`);

@@ -1,7 +1,7 @@
 import type { AddressInfo } from "node:net";
 import { createApp } from "../api/createApp.ts";
 import { buildClient } from "../api/buildClient.ts";
-import { isEmpty, loadDemoData } from "../services/demoData.ts";
+import { isEmpty, loadDemoData, loadDynamicsDemo } from "../services/demoData.ts";
 import { numberOption } from "./cliNumbers.ts";
 import { COMMON_HELP, COMMON_OPTIONS, type Command } from "./command.ts";
 import { openCliDatabase } from "./openCliDatabase.ts";
@@ -25,7 +25,7 @@ ${COMMON_HELP}`,
     const host = (values.host as string | undefined) ?? "127.0.0.1";
     const { db, path, created } = await openCliDatabase(values.db as string | undefined, io);
     if (values.demo && isEmpty(db)) {
-      const reports = loadDemoData(db);
+      const reports = [...loadDemoData(db), ...loadDynamicsDemo(db)];
       io.stderr(`${created ? "created" : "filled"} ${path} with the demo data (${reports.filter((r) => r.status === "imported").length} files)\n`);
     }
     const clientDir = await buildClient();

@@ -7,6 +7,8 @@ export interface LeastSquaresFit {
   sumOfSquares: number;
   /** (JᵀJ)⁻¹ at the minimum (multiply by s² for the covariance); null when singular. */
   inverseInformation: number[][] | null;
+  /** Columns of the Jacobian of the residuals at the minimum (∂r/∂θⱼ). */
+  jacobian: Float64Array[];
   iterations: number;
   converged: boolean;
 }
@@ -68,7 +70,7 @@ export function levenbergMarquardt(
     if (converged) break;
   }
   const inverse = invertSymmetric(gram(jac));
-  return { parameters: p, residuals: r, sumOfSquares: ss, inverseInformation: inverse ? inverse.inverse : null, iterations, converged };
+  return { parameters: p, residuals: r, sumOfSquares: ss, inverseInformation: inverse ? inverse.inverse : null, jacobian: jac, iterations, converged };
 }
 
 function jacobian(f: (p: readonly number[]) => Float64Array, p: readonly number[], lower: readonly number[], upper: readonly number[]): Float64Array[] {
@@ -99,4 +101,28 @@ function dot(a: ArrayLike<number>, b: ArrayLike<number>): number {
 
 function sumSquares(r: Float64Array): number {
   return dot(r, r);
+}
+
+/**
+ * Heteroscedasticity-consistent (HC3) covariance of least-squares estimates:
+ * (JᵀJ)⁻¹·Jᵀ·diag(rᵢ²/(1 − hᵢ)²)·J·(JᵀJ)⁻¹, hᵢ the leverages. Fluorescence
+ * noise grows with intensity, where s²(JᵀJ)⁻¹ under-covers.
+ * Source: MacKinnon & White 1985, J Econometrics 29:305; White 1980, Econometrica 48:817.
+ */
+export function sandwichCovariance(fit: LeastSquaresFit): number[][] | null {
+  const inv = fit.inverseInformation;
+  if (!inv) return null;
+  const m = inv.length;
+  const n = fit.residuals.length;
+  const meat = Array.from({ length: m }, () => new Array<number>(m).fill(0));
+  const row = new Array<number>(m);
+  for (let i = 0; i < n; i++) {
+    for (let a = 0; a < m; a++) row[a] = fit.jacobian[a][i];
+    let h = 0;
+    for (let a = 0; a < m; a++) for (let b = 0; b < m; b++) h += row[a] * inv[a][b] * row[b];
+    const w = fit.residuals[i] ** 2 / Math.max(1 - h, 1e-8) ** 2;
+    for (let a = 0; a < m; a++) for (let b = 0; b < m; b++) meat[a][b] += w * row[a] * row[b];
+  }
+  const left = inv.map((r) => r.map((_, j) => r.reduce((s, v, k) => s + v * meat[k][j], 0)));
+  return left.map((r) => r.map((_, j) => r.reduce((s, v, k) => s + v * inv[k][j], 0)));
 }

@@ -17,6 +17,11 @@ export const BuildUpFitOptions = z.strictObject({
   calibrated: z.boolean().default(false),
   /** Positions (µm) at which to report the local accumulation time τ(x); 5 across the data when absent. */
   accumulationPositionsUm: z.array(z.number().min(0)).max(200).optional(),
+  /**
+   * Covariance of the estimates: `hc3` (default; robust to noise that grows with
+   * intensity, as fluorescence noise does) or `ols` (s²(JᵀJ)⁻¹, constant noise).
+   */
+  covariance: z.enum(["hc3", "ols"]).default("hc3"),
   /** Points of the profile likelihood of k. */
   profilePoints: z.number().int().min(7).max(81).default(21),
   /** Finite volumes for the solver (finite domain or source region). */

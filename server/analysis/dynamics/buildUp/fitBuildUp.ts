@@ -3,7 +3,7 @@ import type { ParameterEstimate } from "../../fit/parameterEstimate.ts";
 import { parameterEstimate } from "../../fit/parameterEstimate.ts";
 import { tQuantile95 } from "../../fit/tQuantile95.ts";
 import { solveLinear } from "../../linalg/solveLinear.ts";
-import { levenbergMarquardt } from "../leastSquares.ts";
+import { levenbergMarquardt, sandwichCovariance } from "../leastSquares.ts";
 import { accumulationTimes } from "../solver/accumulationTimes.ts";
 import { cellValueAt } from "../solver/cellValueAt.ts";
 import { SolverSettings } from "../solver/solverSettings.ts";
@@ -52,7 +52,8 @@ const chi2Crit = 3.841458820694124; // χ²₁ 95% quantile
  * ({@link buildUpResponse}). D and k are fitted on the log scale (their
  * intervals are carried back and stay positive); j0 and B enter linearly and
  * are solved exactly inside the starting grid and the profile likelihood.
- * Covariance s²(JᵀJ)⁻¹ (science notes §7); the profile likelihood of k
+ * Covariance HC3 by default (noise grows with intensity; science notes §8) or
+ * s²(JᵀJ)⁻¹; the profile likelihood of k
  * (Venzon & Moolgavkar 1988, Appl Stat [value from memory]) shows whether the
  * data separate D from k: before the gradient nears steady state, the
  * build-up fixes D (through the spreading) but hardly k.
@@ -134,7 +135,7 @@ export function fitBuildUp(data: BuildUpData, options: BuildUpFitOptions): Build
   const df = n - p;
   const s2 = fit.sumOfSquares / df;
   const tq = tQuantile95(df);
-  const cov = fit.inverseInformation?.map((row) => row.map((v) => v * s2)) ?? null;
+  const cov = options.covariance === "hc3" ? sandwichCovariance(fit) : (fit.inverseInformation?.map((row) => row.map((v) => v * s2)) ?? null);
   const d = Math.exp(logD);
   const k = Math.exp(logK);
   const warnings: string[] = [];
