@@ -98,15 +98,16 @@ const caveat =
 export function storeTimeCourse(db: Db, input: TimeCourseTaskInput, output: TimeCourseGroupOutput[]): { groups: TimeCourseGroupJson[] } {
   const groups = output.map((o, i) => {
     const g = input.groups[i];
+    const { analysis_id: _placeholder, ...json } = timeCourseJson(0, g, o.fit, input.options);
     const id = storeAnalysis(db, {
       kind: "dynamics",
       selection: { ...input.selection, genotype: g.genotype, channel: g.channel, profileIds: g.profileIds },
       settings: input.options,
       engineVersion: ENGINE_VERSION,
-      result: o.fit,
+      result: json,
       profileIds: g.profileIds,
     });
-    return timeCourseJson(id, g, o.fit, input.options);
+    return { analysis_id: id, ...json };
   });
   return { groups };
 }
