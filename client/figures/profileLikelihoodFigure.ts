@@ -26,6 +26,7 @@ export function profileLikelihoodFigure(b: BuildUpFigureInput): FigureConfig {
       lineDataset("95% threshold (χ²₁ = 3.84)", chartPoints([lo, hi], [THRESHOLD, THRESHOLD]), SERIES_COLOURS[1], { dash: [6, 3] }),
     ],
     x: { title: "degradation rate k (1/s, log scale)", type: "logarithmic" },
-    y: { title: "deviance −2Δlog L (dimensionless)" },
+    // Sharp profiles reach deviances in the thousands; clip so that the threshold and its crossings stay visible.
+    y: { title: "deviance −2Δlog L (dimensionless)", min: 0, max: Math.min(Math.max(...b.profile_likelihood_k.map((p) => p.deviance), 4 * THRESHOLD), 10 * THRESHOLD) },
   });
 }

@@ -75,7 +75,7 @@ export function storedFigure(db: Db, request: FigureRequest): BuiltFigure {
     case "simulation": {
       const a = getAnalysis(db, id);
       if (!a) throw new UserError("not-found", `No stored analysis has id ${id}.`, { status: 404 });
-      if (a.kind !== entry.source) throw new UserError("wrong-source", `Analysis ${id} is a ${a.kind} analysis; ${use} needs a ${entry.source} analysis.`, { status: 400, issues: [{ path: "query.analysis", message: `expected ${entry.source}, got ${a.kind}` }] });
+      if (a.kind !== entry.source && !(kind === "accumulation-time" && a.kind === "combine")) throw new UserError("wrong-source", `Analysis ${id} is a ${a.kind} analysis; ${use} needs a ${entry.source} analysis.`, { status: 400, issues: [{ path: "query.analysis", message: `expected ${entry.source}, got ${a.kind}` }] });
       const input = { ...(a.result as object), analysis_id: id };
       const builder = entry.builder as (i: unknown) => FigureConfig;
       const g = input as unknown as { genotype?: string; channel?: string };
