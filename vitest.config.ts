@@ -1,10 +1,10 @@
-import { defineConfig } from "vitest/config";
+import { configDefaults, defineConfig } from "vitest/config";
 
 export default defineConfig({
   test: {
     include: ["test/**/*.test.ts"],
-    // Long simulation checks run with `npm run validate` (vitest.validate.config.ts).
-    exclude: ["test/validate/**", "**/node_modules/**"],
+    // The slow simulations under test/validate/ run with `npm run validate` (vitest.validate.config.ts).
+    exclude: [...configDefaults.exclude, "test/validate/**"],
     testTimeout: 60_000,
     hookTimeout: 60_000,
     pool: "forks",

@@ -1,11 +1,12 @@
 import { defineConfig } from "vitest/config";
 
-/** Long simulation checks (`npm run validate`), kept out of `npm test`. */
+// Slow seeded simulations (coverage of intervals over thousands of replicates): `npm run validate`.
+// MORPHOGAUGE_VALIDATE_SCALE=0.2 runs a bounded version (see test/validate/validateScale.ts).
 export default defineConfig({
   test: {
     include: ["test/validate/**/*.test.ts"],
-    testTimeout: 3_600_000,
-    hookTimeout: 600_000,
+    testTimeout: 1_800_000,
+    hookTimeout: 60_000,
     pool: "forks",
   },
 });
