@@ -175,6 +175,6 @@ describe("analysis commands on the demo database", () => {
     expect(r.stderr).toContain('No stored profiles match genotype "nonesuch"');
     const c = await runCliInProcess(["precision", "--genotype", "wt", "--db", db], {}, dir);
     expect(c.code).toBe(1);
-    expect(c.stderr).toContain("Several channels are stored (glm, vellin)");
+    expect(c.stderr).toContain("Several channels are stored (glm, glm-gfp, vellin)");
   });
 });

@@ -95,7 +95,7 @@ const caveat =
   "D and k come from how the gradient builds up over time, assuming production started at t = 0 and D, k and the source stayed constant; profiles from different embryos are pooled, so embryo-to-embryo amplitude differences count as noise.";
 
 /** Store one analysis per group with its settings and answer the JSON of the command line and the API. */
-export function storeTimeCourse(db: Db, input: TimeCourseTaskInput, output: TimeCourseGroupOutput[]): { groups: TimeCourseGroupJson[] } {
+export function storeTimeCourse(db: Db, input: TimeCourseTaskInput, output: TimeCourseGroupOutput[]): DynamicsQuantities & { note: string; groups: TimeCourseGroupJson[] } {
   const groups = output.map((o, i) => {
     const g = input.groups[i];
     const { analysis_id: _placeholder, ...json } = timeCourseJson(0, g, o.fit, input.options);
@@ -109,7 +109,12 @@ export function storeTimeCourse(db: Db, input: TimeCourseTaskInput, output: Time
     });
     return { analysis_id: id, ...json };
   });
-  return { groups };
+  // With one group its quantities also stand at the top, under the names every dynamics command uses.
+  const only = groups.length === 1 ? groups[0] : null;
+  const top: DynamicsQuantities = only
+    ? { D_um2_per_s: only.D_um2_per_s, k_per_s: only.k_per_s, mobile_fraction: null, half_time_s: null, lambda_um: only.lambda_um, half_life_s: only.half_life_s, accumulation_time_s: only.accumulation_time_s }
+    : emptyQuantities();
+  return { ...top, note: only ? "the quantities at the top are those of the only group fitted" : "several groups were fitted: see groups[] (the top-level quantities are null)", groups };
 }
 
 export function timeCourseJson(id: number, g: TimeCourseGroupInput, f: BuildUpFitResult, settings: BuildUpFitOptions): TimeCourseGroupJson {

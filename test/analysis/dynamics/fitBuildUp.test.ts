@@ -63,7 +63,7 @@ describe("fitBuildUp", () => {
 
   it("recovers D and k with a source region on a finite domain (solver model)", () => {
     // Source: the solver's own response, checked against the steady states in steadyStates.test.ts; recovery within CI.
-    const options = BuildUpFitOptions.parse({ domain: { kind: "finite", lengthUm: 120 }, source: { kind: "region", widthUm: 10 }, profilePoints: 9, cells: 120 });
+    const options = BuildUpFitOptions.parse({ domain: { kind: "finite", lengthUm: 120 }, source: { kind: "region", widthUm: 10 }, profilePoints: 7, cells: 60 });
     const times = [900, 3600, 10_800, 28_800];
     const xs = Array.from({ length: 25 }, (_, i) => i * 5);
     const clean = synthetic(times, xs, () => 0, 0, 1);

@@ -12,7 +12,7 @@ export interface BuildUpData {
   values: Float64Array;
 }
 
-const solverSettings = SolverSettings.parse({ tolerance: 1e-6 });
+const solverSettings = SolverSettings.parse({ tolerance: 1e-4 });
 
 /**
  * The build-up for a unit source (influx 1, or production rate 1 in the
