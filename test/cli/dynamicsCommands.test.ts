@@ -30,6 +30,8 @@ describe("dynamics commands on the demo database", () => {
     const out = await json("dynamics", "--channel", "glm-gfp");
     const g = out.groups[0];
     for (const key of KEYS) expect(g).toHaveProperty(key);
+    // One group: its quantities also stand at the top of the answer.
+    for (const key of KEYS) expect(out[key]).toEqual(g[key] ?? null);
     expect(g).toMatchObject({ genotype: "wt", channel: "glm-gfp", status: "ok", n_profiles: 18, identifiable: true });
     expect(Object.keys(g.D_um2_per_s)).toEqual(["value", "se", "ci95"]);
     expect(Math.abs(g.D_um2_per_s.value / DYNAMICS_SCENARIO.diffusionUm2PerS - 1)).toBeLessThan(0.08);
