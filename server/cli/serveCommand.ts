@@ -1,6 +1,6 @@
 import type { AddressInfo } from "node:net";
 import { createApp } from "../api/createApp.ts";
-import { buildClient } from "../api/buildClient.ts";
+import { clientDirectory } from "../api/clientDirectory.ts";
 import { isEmpty, loadDemoData } from "../services/demoData.ts";
 import { numberOption } from "./cliNumbers.ts";
 import { COMMON_HELP, COMMON_OPTIONS, type Command } from "./command.ts";
@@ -28,7 +28,7 @@ ${COMMON_HELP}`,
       const reports = loadDemoData(db);
       io.stderr(`${created ? "created" : "filled"} ${path} with the demo data (${reports.filter((r) => r.status === "imported").length} files)\n`);
     }
-    const clientDir = await buildClient();
+    const clientDir = await clientDirectory();
     const app = createApp({ db, clientDir, log: (m) => io.stderr(m + "\n") });
     const server = app.listen(port, host);
     await new Promise<void>((resolve, reject) => {
