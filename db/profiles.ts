@@ -75,10 +75,12 @@ function whereClause(f: ProfileFilter): { sql: string; params: unknown[] } {
 }
 
 const SELECT = `SELECT p.id AS profile_id, e.id AS embryo_id, e.label, e.genotype, e.stage, e.age_s, e.length_um, e.dosage, e.session, e.metadata_json,
-  p.channel, p.time_s, p.position_unit, p.pixel_size_um, p.n_points, p.dropped_points, p.flipped, p.import_id, i.file_name, p.positions_um`;
+  p.channel, p.time_s, p.position_unit, p.pixel_size_um, p.n_points, p.dropped_points, p.flipped, p.import_id, i.file_name,
+  substr(p.positions_um, 1, 8) AS first_um, substr(p.positions_um, -8, 8) AS last_um`;
 
+// Summaries read only the first and last position, not the arrays: sorting rows
+// that carry the arrays would copy every profile through SQLite's sorter.
 function toSummary(r: Record<string, unknown>): ProfileSummary {
-  const um = fromBlob(r.positions_um as Buffer);
   return {
     profileId: r.profile_id as number,
     embryoId: r.embryo_id as number,
@@ -99,7 +101,7 @@ function toSummary(r: Record<string, unknown>): ProfileSummary {
     flipped: r.flipped === 1,
     importId: r.import_id as number,
     fileName: r.file_name as string,
-    rangeUm: [um[0], um[um.length - 1]],
+    rangeUm: [fromBlob(r.first_um as Buffer)[0], fromBlob(r.last_um as Buffer)[0]],
   };
 }
 
@@ -119,16 +121,15 @@ export function countProfiles(db: Db, filter: ProfileFilter = {}): number {
 
 /** Profiles with their data arrays. */
 export function loadProfiles(db: Db, filter: ProfileFilter = {}): ProfileData[] {
-  const { sql, params } = whereClause(filter);
-  const rows = db
-    .prepare(`${SELECT}, p.positions_raw, p.intensities FROM profiles p JOIN embryos e ON e.id = p.embryo_id JOIN imports i ON i.id = p.import_id ${sql} ${ORDER}`)
-    .all(...params) as Record<string, unknown>[];
-  return rows.map((r) => ({
-    ...toSummary(r),
-    positionsUm: fromBlob(r.positions_um as Buffer),
-    positionsRaw: fromBlob(r.positions_raw as Buffer),
-    intensities: fromBlob(r.intensities as Buffer),
-  }));
+  // Ordered summaries first, then each profile's arrays by its id (one prepared
+  // statement), in one read transaction: the sort never moves the arrays.
+  const arrays = db.prepare("SELECT positions_um, positions_raw, intensities FROM profiles WHERE id = ?");
+  return db.transaction(() =>
+    listProfiles(db, { ...filter, limit: undefined, offset: undefined }).map((s) => {
+      const r = arrays.get(s.profileId) as Record<string, Buffer>;
+      return { ...s, positionsUm: fromBlob(r.positions_um), positionsRaw: fromBlob(r.positions_raw), intensities: fromBlob(r.intensities) };
+    }),
+  )();
 }
 
 /** Distinct values of a grouping field among stored embryos (genotype, channel, stage, session or a metadata key). */
