@@ -27,6 +27,9 @@ describe("compiled build", () => {
     const server = readdirSync(join(ROOT, "dist/server"));
     expect(server).toContain("morphogauge.mjs");
     expect(server).toContain("jobWorker.mjs");
+    // Every worker shim X.mjs of the sources has its compiled X.mjs beside the chunks.
+    const shims = readdirSync(join(ROOT, "server"), { recursive: true, encoding: "utf8" }).filter((f) => f.endsWith(".mjs") && !f.endsWith("morphogauge.mjs"));
+    for (const shim of shims) expect(server).toContain(shim.split("/").at(-1));
     expect(readdirSync(join(ROOT, "dist/server/migrations")).length).toBe(readdirSync(join(ROOT, "db/migrations")).length);
     const app = readFileSync(join(ROOT, "dist/client/app.js"), "utf8");
     expect(app).not.toContain("sourceMappingURL");
