@@ -84,6 +84,7 @@ export async function benchServer(dir: string, seconds: number, connections: num
     const busy = await loadTest(url, paths, connections, seconds);
     const status = ((await (await fetch(url + `api/jobs/${job.id}`)).json()) as { status: string }).status;
     const stillRunning = status === "running" || status === "queued";
+    if (stillRunning) await fetch(url + `api/jobs/${job.id}`, { method: "DELETE" });
     const ref = (v: number) => ({ label: "same load, no job running", value: v, peakMiB: null });
     const note = `${connections} connections × ${seconds} s; job ${stillRunning ? "still running at the end" : `ended (${status}) before the end`}`;
     return [
