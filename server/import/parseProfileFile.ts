@@ -107,6 +107,10 @@ export function parseProfileFile(data: SourceFile, options: ResolvedImportOption
     }
     warnAboutProfile(raw, warnings, options.flip === "auto");
     profiles.push(toRecord(raw, channel, unit, pixelSizeUm, lengthUm, options.flip === "auto" && risesAwayFromSource(raw.intensities)));
+    // The record holds the numbers now; let the parsed lists go, so a large file is not held twice.
+    raw.positions = [];
+    raw.intensities = [];
+    raw.rows = [];
   }
   for (const e of embryos) {
     if (e.lengthFromPixels !== null) {
