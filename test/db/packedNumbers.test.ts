@@ -2,7 +2,8 @@ import { describe, expect, it } from "vitest";
 import { openDatabaseSync } from "../../db/connection.ts";
 import { listFits, storeFits } from "../../db/fits.ts";
 import { PACK_MIN_LENGTH, packNumbers, unpackNumbers } from "../../db/packedNumbers.ts";
-import { storeParsedImport } from "../../db/storeImport.ts";
+import { ImportOptions } from "../../server/import/importOptions.ts";
+import { importFiles } from "../../server/services/importFiles.ts";
 import { loadProfiles } from "../../db/profiles.ts";
 
 // Stored results must read back exactly as computed (common practice, no source).
@@ -31,13 +32,9 @@ describe("packedNumbers", () => {
 
   it("storeFits packs the long arrays and listFits reads them back unchanged; results stored as plain JSON still read", () => {
     const db = openDatabaseSync(":memory:");
-    const x = Float64Array.from(long(100, (i) => i));
-    storeParsedImport(db, {
-      fileName: "f.csv", sha256: "0".repeat(64), byteSize: 1, format: "long", delimiter: ",", decimalMark: ".", metaFileName: null, metaSha256: null,
-      embryos: [{ label: "e1", genotype: "wt", stage: null, ageS: null, lengthUm: null, dosage: null, session: null, metadata: {} }],
-      profiles: [{ embryo: "e1", channel: "glimmerin", timeS: null, positionUnit: "um", pixelSizeUm: null, positionsRaw: x, positionsUm: x, intensities: x, droppedPoints: 0, flipped: false }],
-      warnings: [], droppedCells: [], columns: [],
-    }, {});
+    const csv = "embryo,position [µm],intensity\n" + Array.from({ length: 100 }, (_, i) => `e1,${i},${200 - i}`).join("\n");
+    const [report] = importFiles(db, [{ name: "f.csv", bytes: new TextEncoder().encode(csv) }], ImportOptions.parse({ genotype: "wt" }));
+    expect(report.status).toBe("imported");
     const profileId = loadProfiles(db)[0].profileId;
     const result = { fit: { xUm: long(100, (i) => i), fitted: long(100, (i) => 1 / (i + 3)), residuals: long(100, (i) => Math.sin(i)) } };
     storeFits(db, [{ profileId, model: "exponential", options: { a: 1 }, engineVersion: "t", status: "converged", lambdaUm: 1, lambdaSeUm: 0.1, aicc: 1, result }]);
