@@ -1,4 +1,5 @@
 import type { Db } from "./connection.ts";
+import { packNumbers, unpackNumbers } from "./packedNumbers.ts";
 import { canonicalJson, stableHash } from "./stableHash.ts";
 
 export interface FitToStore {
@@ -32,7 +33,9 @@ export interface StoredFit {
 /**
  * Store fits in one transaction. The same profile, model and options replace
  * the earlier fit; other options add a new one, so every stored number keeps
- * the settings that produced it.
+ * the settings that produced it. Long number arrays in the result (positions,
+ * fitted curve, residuals) are stored packed (db/packedNumbers.ts); readers
+ * here unpack them.
  */
 export function storeFits(db: Db, fits: FitToStore[], now: () => Date = () => new Date()): number[] {
   const upsert = db.prepare(
@@ -44,19 +47,16 @@ export function storeFits(db: Db, fits: FitToStore[], now: () => Date = () => ne
        result_json = excluded.result_json, created_at = excluded.created_at
      RETURNING id`,
   );
+  // A batch usually shares one set of options: canonicalise and hash each distinct set once.
+  const hashes = new Map<string, string>();
+  const createdAt = now().toISOString();
   return db.transaction(() =>
-    fits.map(
-      (f) =>
-        (
-          upsert.get({
-            ...f,
-            optionsHash: stableHash(f.options),
-            options: canonicalJson(f.options),
-            result: JSON.stringify(f.result),
-            createdAt: now().toISOString(),
-          }) as { id: number }
-        ).id,
-    ),
+    fits.map((f) => {
+      const options = canonicalJson(f.options);
+      let optionsHash = hashes.get(options);
+      if (optionsHash === undefined) hashes.set(options, (optionsHash = stableHash(f.options)));
+      return (upsert.get({ ...f, optionsHash, options, result: JSON.stringify(packNumbers(f.result)), createdAt }) as { id: number }).id;
+    }),
   )();
 }
 
@@ -79,7 +79,7 @@ function toStored(r: Record<string, unknown>): StoredFit {
     lambdaUm: r.lambda_um as number | null,
     lambdaSeUm: r.lambda_se_um as number | null,
     aicc: r.aicc as number | null,
-    result: JSON.parse(r.result_json as string),
+    result: unpackNumbers(JSON.parse(r.result_json as string)),
     createdAt: r.created_at as string,
   };
 }

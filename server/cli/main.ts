@@ -1,6 +1,6 @@
 import { parseArgs } from "node:util";
 import { isUserError } from "../userError.ts";
-import type { Command, CommandIo } from "./command.ts";
+import type { CommandEntry, CommandIo } from "./command.ts";
 import { COMMANDS } from "./commands.ts";
 import { TOOL_VERSION } from "../version.ts";
 
@@ -26,11 +26,12 @@ export async function runCli(argv: string[], io: CommandIo): Promise<number> {
     io.stdout(`${TOOL_VERSION}\n`);
     return 0;
   }
-  const command: Command | undefined = COMMANDS.find((c) => c.name === name);
-  if (!command) {
+  const entry: CommandEntry | undefined = COMMANDS.find((c) => c.name === name);
+  if (!entry) {
     io.stderr(`morphogauge: unknown command "${name}"\n\n${USAGE()}`);
     return 2;
   }
+  const command = await entry.load();
   let parsed;
   try {
     parsed = parseArgs({ args: rest, options: command.options, allowPositionals: command.allowPositionals ?? false, strict: true });

@@ -1,6 +1,6 @@
 import type { AddressInfo } from "node:net";
 import { createApp } from "../api/createApp.ts";
-import { buildClient } from "../api/buildClient.ts";
+import { clientDirectory } from "../api/clientDirectory.ts";
 import { resolve } from "node:path";
 import { defaultDatabasePath, defaultDemoDatabasePath } from "../../db/connection.ts";
 import { DataSets } from "../services/datasets/dataSets.ts";
@@ -34,7 +34,7 @@ ${COMMON_HELP}`,
       log: (m) => io.stderr(m + "\n"),
     });
     const path = datasets.current().path;
-    const clientDir = await buildClient();
+    const clientDir = await clientDirectory();
     const app = createApp({ datasets, clientDir, log: (m) => io.stderr(m + "\n") });
     const server = app.listen(port, host);
     await new Promise<void>((resolve, reject) => {

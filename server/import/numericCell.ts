@@ -22,6 +22,26 @@ export function readNumericCell(raw: string, decimalMark: "." | ","): CellValue 
   return Number.isFinite(value) ? { kind: "number", value } : { kind: "invalid" };
 }
 
+/**
+ * readNumericCell without allocating, for the per-point loop of large files:
+ * the number, or "missing" or "invalid" (same rules).
+ */
+export function cellNumber(raw: string, decimalMark: "." | ","): number | "missing" | "invalid" {
+  const text = raw.trim();
+  const c = text.charCodeAt(0);
+  // No "missing" spelling starts with a digit, "+" or "."; other cells go through the full check.
+  const digitLike = (c >= 48 && c <= 57) || c === 43 || c === 46;
+  if (!digitLike && MISSING.has(text.toLowerCase())) return "missing";
+  let normalised = text;
+  if (decimalMark === ",") {
+    if (text.includes(".") && text.includes(",")) return "invalid";
+    normalised = text.replace(",", ".");
+  }
+  if (!PLAIN_NUMBER.test(normalised)) return "invalid";
+  const value = Number(normalised);
+  return Number.isFinite(value) ? value : "invalid";
+}
+
 /** True when some cell looks like a decimal-comma number ("12,5"), which picks ',' as the decimal mark. */
 export function looksLikeDecimalComma(cells: Iterable<string>): boolean {
   for (const c of cells) if (/^[+-]?\d+,\d+([eE][+-]?\d+)?$/.test(c.trim())) return true;
