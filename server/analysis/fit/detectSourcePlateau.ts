@@ -15,21 +15,24 @@ export interface SourcePlateau {
  * (exponential, finite, power law) is convex and falls most steeply at its
  * first point; a producing region of width s makes the profile concave for
  * x < s and turns it convex at x = s, where it falls most steeply (science.md
- * §1, localized source). So the start is taken at the steepest descent in the
- * source half of the profile, found from local least-squares line fits over a
- * window of ~1/12 of the points, and a plateau is declared only when that
- * point lies beyond the first window and the profile at its start falls at
- * less than half that rate. Beyond the steepest point the profile has the
- * shape of the fitted models, so the fit past it is unbiased [derived; checked
- * by simulation in test/analysis/fit/detectSourcePlateau.test.ts].
+ * §1, localized source). So the profile's local slopes are taken from
+ * least-squares lines over windows of ~1/12 of the points (at least 7), and
+ * a plateau or dip is declared when, in the source half of the profile, the
+ * steepest descent lies beyond the first window and the first window falls
+ * at under 0.7 of that rate — clearly, by 2.5 standard errors of the two
+ * slopes, since the steepest of many noisy slopes is a selected extreme.
+ * The fit then starts at the end of the steepest window: past it the profile
+ * has the convex shape of the fitted models, so the fit is unbiased, at the
+ * cost of a few points [derived; checked by simulation in
+ * test/analysis/fit/detectSourcePlateau.test.ts].
  */
 export function detectSourcePlateau(x: ArrayLike<number>, y: ArrayLike<number>): SourcePlateau {
   const n = x.length;
   const none = (steepestSlope = NaN, firstSlope = NaN): SourcePlateau => ({ kind: "none", startUm: n > 0 ? x[0] : NaN, steepestSlope, firstSlope });
   if (n < 15) return none();
-  const half = Math.max(2, Math.round(n / 24));
-  const width = 2 * half + 1;
-  const slopeAt = (centre: number): number => {
+  const half = Math.max(3, Math.round(n / 25));
+  const width = Math.min(2 * half + 1, n);
+  const line = (centre: number): { slope: number; se: number } => {
     const from = Math.min(Math.max(centre - half, 0), n - width);
     let sx = 0;
     let sy = 0;
@@ -45,24 +48,29 @@ export function detectSourcePlateau(x: ArrayLike<number>, y: ArrayLike<number>):
       sxx += (x[i] - mx) ** 2;
       sxy += (x[i] - mx) * (y[i] - my);
     }
-    return sxx > 0 ? sxy / sxx : NaN;
+    const slope = sxx > 0 ? sxy / sxx : NaN;
+    let rss = 0;
+    for (let i = from; i < from + width; i++) rss += (y[i] - my - slope * (x[i] - mx)) ** 2;
+    return { slope, se: Math.sqrt(rss / (width - 2) / sxx) };
   };
   const midUm = x[0] + 0.5 * (x[n - 1] - x[0]);
   let steepest = half;
-  let steepestSlope = Infinity;
+  let best = { slope: Infinity, se: NaN };
   for (let i = half; i < n - half && x[i] <= midUm; i++) {
-    const s = slopeAt(i);
-    if (s < steepestSlope) {
-      steepestSlope = s;
+    const fit = line(i);
+    if (fit.slope < best.slope) {
+      best = fit;
       steepest = i;
     }
   }
-  const firstSlope = slopeAt(half);
-  if (!(steepestSlope < 0) || !Number.isFinite(firstSlope)) return none(steepestSlope, firstSlope);
-  if (steepest <= 2 * half || firstSlope < 0.5 * steepestSlope) return none(steepestSlope, firstSlope);
+  const first = line(half);
+  if (!(best.slope < 0) || !Number.isFinite(first.slope)) return none(best.slope, first.slope);
+  // The steepest of many noisy local slopes is selected, so ask for a clear difference (3 SE) besides a halved rate.
+  const clearlyFlatter = first.slope - best.slope > 2.5 * Math.hypot(first.se, best.se);
+  if (steepest <= half || first.slope < 0.7 * best.slope || !clearlyFlatter) return none(best.slope, first.slope);
   // A dip: somewhere before the steepest point the profile stands above its first level.
-  let peak = 0;
-  for (let i = 0; i < steepest; i++) if (y[i] > y[peak]) peak = i;
-  const kind = firstSlope > 0 || peak > half ? "dip" : "plateau";
-  return { kind, startUm: x[steepest], steepestSlope, firstSlope };
+  const dip = first.slope > 3 * first.se;
+  // Start at the end of the steepest window: a broad steepest stretch (a rounded source region) is then passed safely.
+  const start = Math.min(steepest + half, n - 1);
+  return { kind: dip ? "dip" : "plateau", startUm: x[start], steepestSlope: best.slope, firstSlope: first.slope };
 }

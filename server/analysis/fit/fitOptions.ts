@@ -81,13 +81,17 @@ export const FitOptions = z
     /** Fit an additive background B; true by default. When false, B = fixed.background or 0. */
     background: z.boolean().default(true),
     /**
-     * Point weights: "none" (ordinary least squares, the default);
+     * Point weights: "intensity" (the default), 1/(a + b·μ²) with μ the
+     * fitted intensity and a, b estimated from the fit's own residuals,
+     * because fluorescence noise has a constant part and a part that grows
+     * with the signal (when the noise is constant, b ≈ 0 and the fit is
+     * ordinary least squares); "none" (ordinary least squares);
      * "inverse-variance", 1/σ² from a variance array supplied with the
      * profile (e.g. the across-embryo variance of a mean profile);
-     * "poisson", 1/μ with μ the fitted intensity, for photon-counting noise
-     * whose variance grows with the signal.
+     * "poisson", 1/μ, for photon-counting noise whose variance is
+     * proportional to the signal.
      */
-    weights: z.enum(["none", "inverse-variance", "poisson"]).default("none"),
+    weights: z.enum(["intensity", "none", "inverse-variance", "poisson"]).default("intensity"),
     /** Outlier-resistant loss, applied by iteratively reweighted least squares. */
     robust: z
       .strictObject({
