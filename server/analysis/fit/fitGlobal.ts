@@ -170,7 +170,7 @@ export function fitGlobal(profiles: readonly ReplicateProfile[], options: Resolv
     if (rising.length > 0)
       warnings.push(`profile(s) ${rising.join(", ")} have amplitude ≤ 0 and do not decay; check them (flipped end to end?) or leave them out`);
 
-    const unitWeights = prepared.every((prof) => prof.weights === null) && options.weights !== "poisson" && options.robust.loss === "none";
+    const unitWeights = prepared.every((prof) => prof.weights === null) && (options.weights === "none" || options.weights === "inverse-variance") && options.robust.loss === "none";
     const sumLogWeights = unitWeights ? 0 : blocks.reduce((acc, b) => acc + sumOfLogWeights(b.weights), 0);
     const criteria = informationCriteria(solution.rss, n, p, sumLogWeights);
     // Flat alternative: each profile its own constant level.

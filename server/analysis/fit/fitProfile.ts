@@ -147,7 +147,7 @@ export function fitProfile(
     if (lengthScaleFreeIndex >= 0 && solution.atBound[lengthScaleFreeIndex] === 1)
       return fail("no-decay", `No decay within the window: the best ${lengthScale.name} runs to its upper limit (${formatNumber(resolved.upper[lengthScaleFreeIndex])} µm, 1000× the window), so the profile is flat or falls only linearly`, n, p, iterations);
 
-    const unitWeights = profile.weights === null && options.weights !== "poisson" && options.robust.loss === "none";
+    const unitWeights = profile.weights === null && (options.weights === "none" || options.weights === "inverse-variance") && options.robust.loss === "none";
     const sumLogWeights = unitWeights ? 0 : sumOfLogWeights(block.weights);
     const criteria = informationCriteria(solution.rss, n, p, sumLogWeights);
     const tss = weightedTotalSumOfSquares(profile.y, block.weights);
