@@ -37,6 +37,7 @@ export function prepareFitInput(db: Db, request: FitRequest): FitTaskInput {
     global: request.global,
     diffusion: request.diffusion ?? null,
     accumulationPositionsUm: request.accumulationPositionsUm,
+    checkModels: request.checkModels,
   };
 }
 

@@ -29,7 +29,8 @@ export interface FitTaskInput {
   accumulationPositionsUm: number[];
   /**
    * Also fit every other model on each profile's window, to say which model
-   * AICc prefers for the group (model_preference); true when absent.
+   * AICc prefers for the group (model_preference); false when absent
+   * (FitRequest.checkModels is true by default, so `fit` always checks).
    */
   checkModels?: boolean;
 }
@@ -69,7 +70,7 @@ export interface FitTaskOutput {
 export function runFitTask(input: FitTaskInput, progress: ProgressCallback = () => {}): FitTaskOutput {
   const fits: ProfileFitOutput[] = [];
   const comparisons: FitTaskOutput["comparisons"] = [];
-  const checkModels = input.checkModels ?? true;
+  const checkModels = input.checkModels ?? false;
   // Per profile and fitted model: every candidate ranked by AICc on that fit's window.
   const checks = new Map<string, AkaikeComparison>();
   const total = input.profiles.length * input.models.length + (input.global ? input.models.length : 0);

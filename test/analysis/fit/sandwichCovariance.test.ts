@@ -27,7 +27,7 @@ def hc3(J, r):
 describe("sandwichCovariance (HC3) against numpy on the same Jacobian and residuals", () => {
   it("power-free single fit (two nonlinear parameters): the full covariance to 1e-7 relative", async () => {
     const { x, y } = noisy("power-free", [40, 1.6], 150, 10, 11);
-    const fit = fitProfile(x, y, FitOptions.parse({ model: "power-free", autoWindow: false })) as ProfileFit;
+    const fit = fitProfile(x, y, FitOptions.parse({ model: "power-free", autoWindow: false, weights: "none" })) as ProfileFit;
     expect(fit.ok).toBe(true);
     expect(fit.errorModel).toBe("hc3");
     const reference = await runPython<number[][]>(
@@ -49,7 +49,7 @@ result = hc3(J, y - A * g - B)
 
   it("global exponential fit of three profiles: λ's variance and each profile's amplitude and background variances to 1e-7 relative", async () => {
     const profiles = [noisy("exponential", [55], 120, 15, 21), noisy("exponential", [55], 90, 25, 22), noisy("exponential", [55], 160, 8, 23)];
-    const fit = fitGlobal(profiles, FitOptions.parse({ model: "exponential", autoWindow: false })) as GlobalFit;
+    const fit = fitGlobal(profiles, FitOptions.parse({ model: "exponential", autoWindow: false, weights: "none" })) as GlobalFit;
     expect(fit.ok).toBe(true);
     const lambda = fit.shared.lambdaUm.value;
     const reference = await runPython<number[][]>(
@@ -76,8 +76,8 @@ result = hc3(np.vstack(rows), np.concatenate(res))
 
   it("errorModel classic keeps s²(JᵀJ)⁻¹, which differs from HC3 under noise that grows with the intensity", () => {
     const { x, y } = noisy("exponential", [55], 120, 15, 31);
-    const hc3 = fitProfile(x, y, FitOptions.parse({ autoWindow: false })) as ProfileFit;
-    const classic = fitProfile(x, y, FitOptions.parse({ autoWindow: false, errorModel: "classic" })) as ProfileFit;
+    const hc3 = fitProfile(x, y, FitOptions.parse({ autoWindow: false, weights: "none" })) as ProfileFit;
+    const classic = fitProfile(x, y, FitOptions.parse({ autoWindow: false, weights: "none", errorModel: "classic" })) as ProfileFit;
     expect(classic.errorModel).toBe("classic");
     expect(classic.parameters.lambdaUm.value).toBeCloseTo(hc3.parameters.lambdaUm.value, 10);
     expect(relativeDifference(classic.parameters.lambdaUm.se!, hc3.parameters.lambdaUm.se!)).toBeGreaterThan(0.05);
