@@ -19,7 +19,7 @@ export interface SourcePlateau {
  * least-squares lines over windows of ~1/12 of the points (at least 7), and
  * a plateau or dip is declared when, in the source half of the profile, the
  * steepest descent lies beyond the first window and the first window falls
- * at under 0.7 of that rate — clearly, by 2.5 standard errors of the two
+ * at under 0.7 of that rate — clearly, by 3 standard errors of the two
  * slopes, since the steepest of many noisy slopes is a selected extreme.
  * The fit then starts at the end of the steepest window: past it the profile
  * has the convex shape of the fitted models, so the fit is unbiased, at the
@@ -66,11 +66,25 @@ export function detectSourcePlateau(x: ArrayLike<number>, y: ArrayLike<number>):
   const first = line(half);
   if (!(best.slope < 0) || !Number.isFinite(first.slope)) return none(best.slope, first.slope);
   // The steepest of many noisy local slopes is selected, so ask for a clear difference (3 SE) besides a halved rate.
-  const clearlyFlatter = first.slope - best.slope > 2.5 * Math.hypot(first.se, best.se);
+  const clearlyFlatter = first.slope - best.slope > 3 * Math.hypot(first.se, best.se);
   if (steepest <= half || first.slope < 0.7 * best.slope || !clearlyFlatter) return none(best.slope, first.slope);
-  // A dip: somewhere before the steepest point the profile stands above its first level.
-  const dip = first.slope > 3 * first.se;
+  // A dip: the first window rises, or before the steepest point a running mean over `half` points stands
+  // clearly (3 SE) above the first one; the noise SD from second differences (robust to the curvature).
+  const secondDifferences: number[] = [];
+  for (let i = 1; i + 1 < Math.min(n, steepest + width); i++) secondDifferences.push(Math.abs(y[i + 1] - 2 * y[i] + y[i - 1]));
+  secondDifferences.sort((a, b) => a - b);
+  const noiseSd = secondDifferences[secondDifferences.length >> 1] / (0.6745 * Math.sqrt(6));
+  const runningMean = (from: number) => {
+    let sum = 0;
+    for (let i = from; i < from + half; i++) sum += y[i];
+    return sum / half;
+  };
+  const start = runningMean(0);
+  let peak = start;
+  for (let i = 1; i + half <= steepest; i++) peak = Math.max(peak, runningMean(i));
+  const dip = first.slope > 0 || peak - start > (3 * noiseSd * Math.SQRT2) / Math.sqrt(half);
   // Start at the end of the steepest window: a broad steepest stretch (a rounded source region) is then passed safely.
-  const start = Math.min(steepest + half, n - 1);
-  return { kind: dip ? "dip" : "plateau", startUm: x[start], steepestSlope: best.slope, firstSlope: first.slope };
+  const startIndex = Math.min(steepest + half, n - 1);
+  return { kind: dip ? "dip" : "plateau", startUm: x[startIndex], steepestSlope: best.slope, firstSlope: first.slope };
 }
+
