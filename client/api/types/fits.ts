@@ -84,6 +84,8 @@ export interface JobGlobalFit {
   per_embryo: { parameter: string; fitted: number; failed: number; mean_um: number; sd_um: number; median_um: number; sem_um: number; mean_over_global: number } | null;
   note: string | null;
   akaike_weight: number | null;
+  window?: { from_um: number; to_um: number; how_chosen: string } | null;
+  model_preference?: { model: string | null; message: string; agrees: boolean } | null;
 }
 
 /** Which model AICc prefers for a group, per fitted model (fit job result `groups`). */
