@@ -25,23 +25,23 @@ const fromEstimate = (e: EstimateInput | null) => (e ? { value: e.value, ci95: e
 function metricView(c: ComparisonFigureInput): MetricView {
   switch (c.metric) {
     case "amplitude":
-      return { label: "amplitude at the source (a.u.)", centre: (g) => fromSummary(g.amplitude_au), centreLabel: "group mean ± 95% CI" };
+      return { label: "amplitude at the source (a.u.)", centre: (g) => fromSummary(g.amplitude_au), centreLabel: "group mean ± 95% CI (t)" };
     case "boundary":
-      return { label: "boundary position from source (µm)", centre: (g) => fromSummary(g.boundary_um), centreLabel: "group mean ± 95% CI" };
+      return { label: "boundary position from source (µm)", centre: (g) => fromSummary(g.boundary_um), centreLabel: "group mean ± 95% CI (t)" };
     case "sigma_x":
       // The comparison contrasts minimal σ_x when every group has one, else boundary SDs.
       return c.groups.every((g) => g.sigma_x_min_um)
         ? { label: "minimal positional error σ_x (µm)", centre: (g) => fromEstimate(g.sigma_x_min_um), centreLabel: "minimal σ_x ± 95% CI" }
         : { label: "boundary SD across embryos (µm)", centre: (g) => fromEstimate(g.boundary_sd_um), centreLabel: "boundary SD ± 95% CI" };
     default:
-      return { label: "decay length λ (µm)", centre: (g) => fromSummary(g.lambda_um), centreLabel: "group mean ± 95% CI" };
+      return { label: "decay length λ (µm)", centre: (g) => fromSummary(g.lambda_um), centreLabel: "group mean ± 95% CI (t)" };
   }
 }
 
 /**
  * Every embryo's value of the compared metric as a point (jittered
  * deterministically within its group's column), beside the group mean with
- * its 95% bootstrap CI as an error bar.
+ * its 95% t interval (the headline interval of a group mean) as an error bar.
  */
 export function groupValuesFigure(comparison: ComparisonFigureInput): FigureConfig {
   const view = metricView(comparison);

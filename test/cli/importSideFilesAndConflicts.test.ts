@@ -148,7 +148,7 @@ describe("import --on-conflict", () => {
 });
 
 describe("no position column in a large file", () => {
-  it("a long table over 256 kB without a position column is refused naming its columns, from its first lines", async () => {
+  it("a long table over 64 kB without a position column is refused naming its columns, from its first lines", async () => {
     const t = setup();
     const rows = Array.from({ length: 30_000 }, (_, i) => `e${i % 300},${i},${(i * 7) % 101}`);
     t.file("big.csv", "embryo,A,intensity\n" + rows.join("\n") + "\n");

@@ -27,7 +27,7 @@ describe("groupValuesFigure", () => {
 
   it("groupValuesFigure marks each group mean with its 95% CI as an error bar", () => {
     const config = groupValuesFigure(comparisonInput);
-    expect(dataset(config, "group mean ± 95% CI").data).toEqual([{ x: 0.25, y: 40 }, { x: 1.25, y: 25 }]);
+    expect(dataset(config, "group mean ± 95% CI (t)").data).toEqual([{ x: 0.25, y: 40 }, { x: 1.25, y: 25 }]);
     const bars = config.data.datasets.find((d) => d.label === "" && d.showLine)!;
     expect(bars.data.filter((p) => !Number.isNaN(p.y))).toEqual([{ x: 0.25, y: 37.7 }, { x: 0.25, y: 42.3 }, { x: 1.25, y: 23.5 }, { x: 1.25, y: 26.5 }]);
   });

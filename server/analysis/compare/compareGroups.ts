@@ -116,6 +116,11 @@ export function compareGroups(records: readonly EmbryoRecord[], options: Compare
 
   const summaries = ordered.map((g) => {
     if (g.records.length < 3) warnings.add(`group "${g.key.label}" has ${g.records.length} usable embryo(s); intervals need at least 3`);
+    const uncrossed = g.records.filter((r) => r.boundaryCensored !== undefined).length;
+    if (uncrossed > 0 && (o.metric === "boundary" || o.metric === "sigma_x")) {
+      // Not missing at random: the embryos that never reach the threshold are the dim ones, so the boundary mean and SD of the rest are biased.
+      warnings.add(`group "${g.key.label}": ${uncrossed} of ${g.records.length} embryos never cross the boundary threshold and are left out of its boundary mean and SD, which are therefore biased (away from the source when dim embryos are missing); a lower threshold keeps them`);
+    }
     const s = summarizeGroup(g.key.label, g.records, g.excluded, o.extras[g.key.label], o);
     step("summaries");
     return s;

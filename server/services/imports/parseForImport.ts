@@ -28,7 +28,7 @@ export function parseForImport(file: SourceFile, options: ResolvedImportOptions,
   }
   const parsed = parseProfileFile(file, options, meta);
   if (meta) {
-    const side = sniffSourceFile(meta, options);
+    const side = sniffSourceFile(meta, options, true);
     if (side.kind === "side-file") {
       const named = new Set(side.labels);
       if (!parsed.embryos.some((e) => named.has(e.label))) {

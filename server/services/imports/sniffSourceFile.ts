@@ -5,8 +5,8 @@ import type { ResolvedImportOptions } from "../../import/importOptions.ts";
 import { looksLikeDecimalComma, readNumericCell } from "../../import/numericCell.ts";
 import { isUserError } from "../../userError.ts";
 
-/** Side files hold one row per embryo; of a larger file only the start is read, which tells the header and first column. */
-const SNIFF_BYTES = 256 * 1024;
+/** Of a larger file only the start is read: its header and first rows tell a profile table from a side file. */
+const SNIFF_BYTES = 64 * 1024;
 
 /** What a file given for import holds, judged from its header and first column before anything is parsed in full. */
 export type SniffedFile =
@@ -20,12 +20,17 @@ export type SniffedFile =
  * Tell profiles from a side file: a profile table has a position column (long)
  * or positions as numbers in its first column (wide); a side file has neither,
  * and a different embryo label on every row. Of a large file only the first
- * 256 kB are read. Problems of the table itself are
+ * 64 kB are read, unless `whole`. Problems of the table itself are
  * left to the parser, which names them by row and column.
  */
-export function sniffSourceFile(file: { name: string; bytes: Uint8Array }, options: Pick<ResolvedImportOptions, "delimiter" | "decimalMark" | "labelPrefix">): SniffedFile {
+export function sniffSourceFile(
+  file: { name: string; bytes: Uint8Array },
+  options: Pick<ResolvedImportOptions, "delimiter" | "decimalMark" | "labelPrefix">,
+  /** Read the whole file (for every label of a side file), not only its start. */
+  whole = false,
+): SniffedFile {
   let bytes = file.bytes;
-  if (bytes.length > SNIFF_BYTES) {
+  if (!whole && bytes.length > SNIFF_BYTES) {
     // UTF-16 files are left to the parser; in any other encoding a line ends at byte 0x0A.
     if ((bytes[0] === 0xff && bytes[1] === 0xfe) || (bytes[0] === 0xfe && bytes[1] === 0xff)) return { kind: "profiles" };
     const end = bytes.subarray(0, SNIFF_BYTES).lastIndexOf(0x0a);

@@ -61,6 +61,18 @@ describe("compareGroups", () => {
     }
   });
 
+  it("compareGroups says how many embryos of a group never cross the boundary threshold when boundaries are compared", () => {
+    // Source: embryos that never reach a threshold are not missing at random (the dim ones), so the rest give a biased mean — METHODS.md §5.
+    const withUncrossed: EmbryoRecord[] = [
+      ...base,
+      { embryo: "wt-dim-1", group: "wt", lambdaUm: 90, converged: true, boundaryCensored: "before_start", boundaryLimitUm: 0 },
+      { embryo: "wt-dim-2", group: "wt", lambdaUm: 92, converged: true, boundaryCensored: "before_start", boundaryLimitUm: 0 },
+    ];
+    const r = compareGroups(withUncrossed, { metric: "boundary", seed: 3, bootstrap: 200, permutations: 99 });
+    expect(r.warnings).toContainEqual(expect.stringMatching(/^group "wt": 2 of 16 embryos never cross the boundary threshold/));
+    expect(compareGroups(withUncrossed, { metric: "lambda", seed: 3, bootstrap: 200, permutations: 99 }).warnings.join(" ")).not.toMatch(/never cross/);
+  });
+
   it("compareGroups lists every excluded embryo with its reason", () => {
     // common practice, no source: unconverged fits, curated-out embryos and invalid λ are not measurements.
     const reasons = Object.fromEntries(result.groups.flatMap((g) => g.excluded.map((e) => [e.embryo, e.reason])));

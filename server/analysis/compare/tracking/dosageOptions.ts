@@ -8,7 +8,7 @@ export const DosageOptions = z.object({
    * (e.g. a global fit). Without it, the mean of the series' per-embryo λ is used.
    */
   lambdaFitUm: EstimateSchema.optional(),
-  /** Bootstrap resamples for the per-dosage CIs of the mean boundary. */
+  /** Bootstrap resamples for the second-opinion CIs of each dosage's mean boundary (the headline CI is a t interval). */
   bootstrap: z.number().int().min(100).max(1_000_000).default(2000),
   interval: z.enum(["bca", "percentile"]).default("bca"),
   level: z.number().gt(0.5).lt(1).default(0.95),

@@ -22,7 +22,7 @@ export const TrackOptions = z.object({
   alpha: z.number().gt(0).lt(1).default(0.05),
   /** Relative distance from the fitted plateau still called steady (5% by default). */
   steadyTolerance: z.number().gt(0).lt(1).default(0.05),
-  /** Bootstrap resamples for the per-bin CIs of the mean. */
+  /** Bootstrap resamples for the second-opinion CIs of each bin's mean (the headline CI is a t interval). */
   bootstrap: z.number().int().min(100).max(1_000_000).default(2000),
   interval: z.enum(["bca", "percentile"]).default("bca"),
   level: z.number().gt(0.5).lt(1).default(0.95),

@@ -51,7 +51,7 @@ export interface TrackResult {
 
 /**
  * A metric (λ, amplitude, boundary) against developmental time, per group:
- * the per-embryo points, bin means with bootstrap CIs (resampling embryos),
+ * the per-embryo points, bin means with t intervals (bootstrap CIs resampling embryos beside them),
  * a linear or saturating trend fitted to the points, and a check whether the
  * metric is still changing at the end of the range (see assessSteadyState).
  */
