@@ -129,6 +129,8 @@ export interface FitListItem {
   aicc: number | null;
   nPoints: number | null;
   window: { xMinUm?: number; xMaxUm?: number } | null;
+  /** The positions actually fitted (µm) and how they were chosen; null for fits stored before it was recorded. */
+  fittedWindow: { fromUm: number; toUm: number; startRule: string; endRule: string; description: string } | null;
   options: unknown;
   engineVersion: string;
   createdAt: string;
@@ -160,7 +162,8 @@ export function listFitItems(db: Db, filter: FitListFilter = {}): FitListItem[] 
               json_extract(f.result_json, '$.fit.parameters.background') AS background,
               json_extract(f.result_json, '$.fit.r2') AS r2,
               json_extract(f.result_json, '$.fit.n') AS n,
-              json_extract(f.options_json, '$.window') AS window
+              json_extract(f.options_json, '$.window') AS window,
+              json_extract(f.result_json, '$.fit.window') AS fitted_window
        FROM fits f JOIN profiles p ON p.id = f.profile_id JOIN embryos e ON e.id = p.embryo_id
        ${conds.length ? `WHERE ${conds.join(" AND ")}` : ""}
        ORDER BY e.genotype, e.label, p.channel, p.time_s, f.model`,
@@ -187,6 +190,7 @@ export function listFitItems(db: Db, filter: FitListFilter = {}): FitListItem[] 
     aicc: r.aicc as number | null,
     nPoints: r.n as number | null,
     window: parsed(r.window),
+    fittedWindow: parsed(r.fitted_window),
     options: JSON.parse(r.options_json as string),
     engineVersion: r.engine_version as string,
     createdAt: r.created_at as string,
