@@ -9,6 +9,8 @@ import { importCommand } from "./importCommand.ts";
 import { listCommand } from "./listCommand.ts";
 import { reportCommand } from "./reportCommand.ts";
 import { serveCommand } from "./serveCommand.ts";
+import { backupCommand } from "./backupCommand.ts";
+import { restoreCommand } from "./restoreCommand.ts";
 
 /** Every sub-command, in the order the help lists them. */
-export const COMMANDS: Command[] = [importCommand, listCommand, demoCommand, fitCommand, precisionCommand, compareCommand, trackCommand, planCommand, reportCommand, serveCommand];
+export const COMMANDS: Command[] = [importCommand, listCommand, demoCommand, fitCommand, precisionCommand, compareCommand, trackCommand, planCommand, reportCommand, serveCommand, backupCommand, restoreCommand];

@@ -4,6 +4,7 @@ import type { ResolvedImportOptions } from "../import/importOptions.ts";
 import { parseProfileFile, type SourceFile } from "../import/parseProfileFile.ts";
 import type { ImportWarning, ParsedImport } from "../import/records.ts";
 import { isUserError, type UserIssue } from "../userError.ts";
+import { boundedUserError, checkParsedImport } from "./uploadChecks.ts";
 
 export type ImportReport =
   | {
@@ -24,14 +25,18 @@ export type ImportReport =
  * Import each file in its own transaction: a file goes in whole or not at all,
  * and one rejected file does not stop the others. The same bytes twice add nothing.
  */
-export function importFiles(db: Db, files: SourceFile[], options: ResolvedImportOptions, meta?: SourceFile): ImportReport[] {
-  return files.map((file) => importOne(db, file, options, meta));
+export function importFiles(db: Db, files: SourceFile[], options: ResolvedImportOptions, meta?: SourceFile, parse: ParseFile = parseProfileFile): ImportReport[] {
+  return files.map((file) => importOne(db, file, options, meta, parse));
 }
 
-function importOne(db: Db, file: SourceFile, options: ResolvedImportOptions, meta?: SourceFile): ImportReport {
+/** How a file becomes records: the parser itself, or (in the server) the result of parsing it in a worker thread. */
+export type ParseFile = (file: SourceFile, options: ResolvedImportOptions, meta?: SourceFile) => ParsedImport;
+
+function importOne(db: Db, file: SourceFile, options: ResolvedImportOptions, meta: SourceFile | undefined, parse: ParseFile): ImportReport {
   let parsed: ParsedImport;
   try {
-    parsed = parseProfileFile(file, options, meta);
+    parsed = parse(file, options, meta);
+    checkParsedImport(parsed);
     const stored = storeParsedImport(db, parsed, { ...options, metaFile: meta?.name ?? null });
     const again = stored.status === "already-imported";
     return {
@@ -48,8 +53,9 @@ function importOne(db: Db, file: SourceFile, options: ResolvedImportOptions, met
         ? `already imported${stored.originalFileName !== file.name ? ` as ${stored.originalFileName}` : ""} (import #${stored.importId}); nothing added`
         : `${stored.profilesAdded} profile${stored.profilesAdded === 1 ? "" : "s"} from ${parsed.embryos.length} embryo${parsed.embryos.length === 1 ? "" : "s"} (${stored.embryosAdded} new)` + joinedNote(stored.embryosMatched, parsed),
     };
-  } catch (e) {
-    if (!isUserError(e)) throw e;
+  } catch (caught) {
+    if (!isUserError(caught)) throw caught;
+    const e = boundedUserError(caught);
     return { file: file.name, status: "rejected", error: { code: e.code, message: e.message, issues: e.issues } };
   }
 }

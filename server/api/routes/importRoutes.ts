@@ -1,7 +1,10 @@
 import { z } from "zod";
 import { deleteImport, listImports } from "../../../db/imports.ts";
 import { ImportOptions } from "../../import/importOptions.ts";
-import { parseProfileFile } from "../../import/parseProfileFile.ts";
+import type { SourceFile } from "../../import/parseProfileFile.ts";
+import type { ParsedImport } from "../../import/records.ts";
+import type { ServerLimits } from "../../serverLimits.ts";
+import type { ParseOutcome } from "../../services/uploadWorker.ts";
 import { importFiles } from "../../services/importFiles.ts";
 import { isUserError, UserError } from "../../userError.ts";
 import { requestValidationError } from "../httpError.ts";
@@ -28,9 +31,9 @@ const UPLOAD_FIELDS = {
   ...Object.fromEntries(Object.keys(UploadFields.shape).map((k) => [k, "import option, as in the command line"])),
 };
 
-async function readUpload(req: Parameters<typeof readMultipart>[0]) {
+async function readUpload(req: Parameters<typeof readMultipart>[0], limits: ServerLimits) {
   const defaults = ImportOptions.parse({});
-  const body = await readMultipart(req, { maxFileBytes: defaults.maxBytes, maxFiles: 50 });
+  const body = await readMultipart(req, { maxFileBytes: defaults.maxBytes, maxFiles: 50, maxTotalBytes: limits.maxUploadMb * 1024 * 1024 });
   const empty = Object.fromEntries(Object.entries(body.fields).filter(([, v]) => v !== ""));
   const fields = UploadFields.safeParse(empty);
   if (!fields.success) throw requestValidationError(fields.error, "body");
@@ -41,6 +44,16 @@ async function readUpload(req: Parameters<typeof readMultipart>[0]) {
   return { files, meta, options };
 }
 
+/** The worker thread's outcome for each file, as a parse function: the parsed import, or its refusal thrown. */
+function parsedBy(files: SourceFile[], outcomes: ParseOutcome[]): (file: SourceFile) => ParsedImport {
+  return (file) => {
+    const o = outcomes[files.indexOf(file)];
+    if (o.ok) return o.parsed;
+    if (o.error) throw new UserError(o.error.code, o.error.message, { status: o.error.status, issues: o.error.issues });
+    throw new Error(`reading ${file.name} failed: ${o.internal}`);
+  };
+}
+
 export const importRoutes = [
   defineRoute({
     method: "post",
@@ -49,12 +62,13 @@ export const importRoutes = [
     summary: "Parse uploaded files without storing anything",
     description: "Shows the detected shape, separator, decimal mark, column roles and units, embryos and warnings, or the reasons a file would be rejected.",
     multipart: { fields: UPLOAD_FIELDS },
-    async handler({ req }) {
-      const { files, meta, options } = await readUpload(req);
+    async handler({ req, limits, uploads }) {
+      const { files, meta, options } = await readUpload(req, limits);
+      const parse = parsedBy(files, await uploads.read(files, options, meta));
       return {
         files: files.map((f) => {
           try {
-            const p = parseProfileFile(f, options, meta);
+            const p = parse(f);
             return {
               file: f.name,
               status: "ok" as const,
@@ -85,9 +99,9 @@ export const importRoutes = [
     tag: "imports",
     summary: "Import uploaded profile files (each file all-or-nothing)",
     multipart: { fields: UPLOAD_FIELDS },
-    async handler({ req, res, db }) {
-      const { files, meta, options } = await readUpload(req);
-      const reports = importFiles(db, files, options, meta);
+    async handler({ req, res, db, limits, uploads }) {
+      const { files, meta, options } = await readUpload(req, limits);
+      const reports = importFiles(db, files, options, meta, parsedBy(files, await uploads.read(files, options, meta)));
       res.status(reports.every((r) => r.status === "rejected") ? 422 : 200);
       return { files: reports };
     },
