@@ -38,15 +38,20 @@ export function readMultipart(req: Request, limits: { maxFileBytes: number; maxF
     req.on("data", onData);
     const bb = busboy({ headers: req.headers, limits: { fileSize: limits.maxFileBytes, files: limits.maxFiles, fields: 50 } });
     bb.on("file", (field, stream, info) => {
-      const chunks: Buffer[] = [];
+      const chunks: Uint8Array[] = [];
       stream.on("data", (c: Buffer) => {
-        if (!failed) chunks.push(c);
+        if (failed) return;
+        // A copy of each chunk as it arrives, in memory of its own: the copies can be handed to the
+        // reading thread without copying again, and no large copy ever blocks this thread at once.
+        const own = new Uint8Array(c.length);
+        own.set(c);
+        chunks.push(own);
       });
       stream.on("limit", () => {
         failed ??= new UserError("file-too-large", `${info.filename}: the file is over the ${limits.maxFileBytes}-byte limit. Nothing was imported.`, { status: 413 });
       });
       stream.on("end", () => {
-        (out.files[field] ??= []).push({ name: info.filename || field, bytes: new Uint8Array(Buffer.concat(chunks)) });
+        (out.files[field] ??= []).push(uploadedFile(info.filename || field, chunks));
       });
     });
     bb.on("field", (name, value) => {
@@ -67,4 +72,26 @@ function tooLarge(maxBytes: number): UserError {
     `The upload is over ${Math.round(maxBytes / 1024 / 1024)} MB in all; nothing was imported. Send fewer files at once (the limit can be raised with the environment variable MORPHOGAUGE_MAX_UPLOAD_MB when the server starts).`,
     { status: 413 },
   );
+}
+
+/** An uploaded file: its chunks as received, and `bytes` joined from them only if something on this thread asks. */
+export type UploadedFile = SourceFile & { chunks: Uint8Array[] };
+
+function uploadedFile(name: string, chunks: Uint8Array[]): UploadedFile {
+  const file = { name, chunks } as UploadedFile;
+  let joined: Uint8Array | null = null;
+  // Not enumerable: sending the file to a worker thread sends the chunks, not a joined copy.
+  Object.defineProperty(file, "bytes", { enumerable: false, get: () => (joined ??= joinChunks(chunks)) });
+  return file;
+}
+
+/** The chunks in one buffer. */
+export function joinChunks(chunks: Uint8Array[]): Uint8Array {
+  const out = new Uint8Array(chunks.reduce((n, c) => n + c.length, 0));
+  let at = 0;
+  for (const c of chunks) {
+    out.set(c, at);
+    at += c.length;
+  }
+  return out;
 }

@@ -85,9 +85,15 @@ export class UploadReader {
           : e,
       );
     };
-    // Hand the bytes over instead of copying them: a copy of a 50 MB file would stall this thread.
-    const own = [...job.files, ...(job.meta ? [job.meta] : [])].map((f) => f.bytes.buffer).filter((b, i, all) => b instanceof ArrayBuffer && all.indexOf(b) === i);
-    const transferable = own.filter((b) => [...job.files, ...(job.meta ? [job.meta] : [])].every((f) => f.bytes.buffer !== b || (f.bytes.byteOffset === 0 && f.bytes.byteLength === b.byteLength)));
-    worker.worker.postMessage({ files: job.files, meta: job.meta, options: job.options, limits: this.limits }, transferable as ArrayBuffer[]);
+    // Hand the uploaded chunks over instead of copying them: a copy of a 50 MB file would stall this thread.
+    const asChunks = (f: SourceFile) => ({ name: f.name, chunks: "chunks" in f ? (f as SourceFile & { chunks: Uint8Array[] }).chunks : [f.bytes] });
+    const files = job.files.map(asChunks);
+    const meta = job.meta ? asChunks(job.meta) : undefined;
+    // Only buffers that hold exactly one chunk of ours are handed over (never a shared pool).
+    const transferable = [...files, ...(meta ? [meta] : [])]
+      .flatMap((f) => f.chunks)
+      .filter((c) => c.buffer instanceof ArrayBuffer && c.byteOffset === 0 && c.byteLength === c.buffer.byteLength && c.byteLength > 0)
+      .map((c) => c.buffer as ArrayBuffer);
+    worker.worker.postMessage({ files, meta, options: job.options, limits: this.limits }, [...new Set(transferable)]);
   }
 }

@@ -42,6 +42,19 @@ export function parseUploads(request: UploadRequest): ParseOutcome[] {
   });
 }
 
-parentPort?.on("message", (request: UploadRequest) => {
-  parentPort!.postMessage(parseUploads(request));
+/** An uploaded file as it arrives from the request thread: its chunks, joined here. */
+type ChunkedFile = { name: string; chunks: Uint8Array[] };
+
+function join(f: ChunkedFile): SourceFile {
+  const bytes = new Uint8Array(f.chunks.reduce((n, c) => n + c.length, 0));
+  let at = 0;
+  for (const c of f.chunks) {
+    bytes.set(c, at);
+    at += c.length;
+  }
+  return { name: f.name, bytes };
+}
+
+parentPort?.on("message", (m: Omit<UploadRequest, "files" | "meta"> & { files: ChunkedFile[]; meta?: ChunkedFile }) => {
+  parentPort!.postMessage(parseUploads({ ...m, files: m.files.map(join), meta: m.meta ? join(m.meta) : undefined }));
 });

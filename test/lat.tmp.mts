@@ -1,0 +1,15 @@
+import { spawn } from "node:child_process";
+import { writeFileSync } from "node:fs";
+import { startTestServer } from "./helpers/testServer.ts";
+import { ServerLimits } from "../server/serverLimits.ts";
+const s = await startTestServer({ limits: ServerLimits.parse({ maxUploadMb: 60 }) });
+writeFileSync("/tmp/big.csv", new Uint8Array(49 * 1024 * 1024).fill(0x31));
+let worst = 0; let running = true;
+const lag = setInterval(() => {}, 1000);
+let last = performance.now();
+const tick = setInterval(() => { const now = performance.now(); worst = Math.max(worst, now - last - 10); last = now; }, 10);
+const t0 = performance.now();
+await new Promise<void>((res) => { const c = spawn("curl", ["-s", "-H", "x-requested-with: t", "-F", "files=@/tmp/big.csv", `${s.url}/api/imports`]); c.stdout.on("data", (d) => console.log(String(d).slice(0, 200))); c.on("exit", () => res()); });
+console.log("total ms", performance.now() - t0, "worst loop lag", worst);
+clearInterval(tick); clearInterval(lag);
+await s.close();

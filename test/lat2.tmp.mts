@@ -1,0 +1,16 @@
+import { spawn } from "node:child_process";
+import { writeFileSync } from "node:fs";
+import { monitorEventLoopDelay } from "node:perf_hooks";
+import { startTestServer } from "./helpers/testServer.ts";
+import { ServerLimits } from "../server/serverLimits.ts";
+const s = await startTestServer({ limits: ServerLimits.parse({ maxUploadMb: 60 }) });
+writeFileSync("/tmp/big.csv", new Uint8Array(49 * 1024 * 1024).fill(0x31));
+await new Promise((r) => setTimeout(r, 500));
+const lags: [number, number][] = [];
+let last = performance.now();
+const t0 = performance.now();
+const tick = setInterval(() => { const now = performance.now(); if (now - last - 10 > 50) lags.push([Math.round(last - t0), Math.round(now - last - 10)]); last = now; }, 10);
+await new Promise<void>((res) => { const c = spawn("curl", ["-s", "-o", "/dev/null", "-w", "%{http_code}", "-H", "x-requested-with: t", "-F", "files=@/tmp/big.csv", `${s.url}/api/imports`]); c.stdout.on("data", (d) => console.log("status", String(d))); c.on("exit", () => res()); });
+console.log("total ms", performance.now() - t0, "lags >50ms [at, ms]", JSON.stringify(lags));
+clearInterval(tick);
+await s.close();
