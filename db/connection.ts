@@ -1,5 +1,6 @@
 import Database from "better-sqlite3";
 import { existsSync, statSync } from "node:fs";
+import { dirname } from "node:path";
 import { UserError } from "../server/userError.ts";
 import { backupHint, databaseUserError } from "./databaseError.ts";
 import { applyMigrations, loadMigrations, schemaVersion, type Migration } from "./migrate.ts";
@@ -28,6 +29,9 @@ export function defaultDatabasePath(env: NodeJS.ProcessEnv = process.env): strin
  */
 export async function openDatabase(path: string, migrations: Migration[] = loadMigrations()): Promise<OpenedDatabase> {
   const existed = path !== ":memory:" && existsSync(path) && statSync(path).size > 0;
+  if (path !== ":memory:" && !existsSync(dirname(path))) {
+    throw new UserError("database-cannot-open", `Cannot create the database ${path}: the folder ${dirname(path)} does not exist. Create it first, or choose another --db path.`);
+  }
   let db: Db;
   try {
     db = new Database(path);

@@ -46,7 +46,7 @@ export function databaseUserError(e: unknown, path: string): UserError | null {
     );
   }
   if (code === "SQLITE_CANTOPEN" || code === "ENOENT" || code === "ENOTDIR") {
-    return new UserError("database-cannot-open", `Cannot open ${file}: the folder does not exist or cannot be entered. Check the --db path.`, { status: 503 });
+    return new UserError("database-cannot-open", `Cannot open or create ${file}: its folder does not exist, is read-only, or cannot be entered. Check the --db path and the folder's permissions.`, { status: 503 });
   }
   if (code.startsWith("SQLITE_IOERR")) {
     return new UserError("database-io-error", `Reading or writing ${file} failed (${code}): the disk or network drive may be failing or full. Nothing more was stored; check the disk and try again.`, { status: 503 });
