@@ -12,9 +12,9 @@ export function excerpt(text: string, max = EXCERPT_CHARS): string {
   return text.length <= max ? text : `${text.slice(0, max)}… (${text.length - max} more characters)`;
 }
 
-/** Shorten every quoted part of a message ("…" or '…') to an excerpt, and the whole message to a readable length. */
+/** Shorten every quoted part of a message ("…", paired from the left) to an excerpt, and the whole message to a readable length. */
 export function shortenEchoes(message: string, maxChars = 600): string {
-  const quoted = message.replace(/"([^"]{41,})"|'([^']{41,})'/g, (_m, a: string | undefined, b: string | undefined) => `"${excerpt(a ?? b ?? "")}"`);
+  const quoted = message.replace(/"([^"]*)"/g, (m, inner: string) => (inner.length > EXCERPT_CHARS ? `"${excerpt(inner)}"` : m));
   return quoted.length <= maxChars ? quoted : `${quoted.slice(0, maxChars)}… (message shortened)`;
 }
 
