@@ -26,19 +26,40 @@ function resultJson(v: JobView): string | null {
   return text.length <= MAX_RESULT_CHARS ? text : JSON.stringify({ note: "The result was too large to keep with the job; it is stored with the analysis (GET /api/analyses, /api/fits)." });
 }
 
-/** Job state in the `jobs` table, so that it outlives the process. */
-export function databaseJobStore(db: Db, keep = 1000): JobStore {
-  const insert = db.prepare(
-    `INSERT INTO jobs (id, kind, status, request_json, inputs_json, progress_json, error_json, result_json, created_at, finished_at)
-     VALUES (@id, @kind, @status, @request, @inputs, @progress, @error, NULL, @createdAt, @finishedAt)`,
-  );
-  const update = db.prepare(
-    "UPDATE jobs SET status = @status, progress_json = @progress, error_json = @error, result_json = @result, finished_at = @finishedAt WHERE id = @id",
-  );
-  const trim = db.prepare("DELETE FROM jobs WHERE status NOT IN ('queued', 'running') AND id NOT IN (SELECT id FROM jobs ORDER BY created_at DESC LIMIT ?)");
+/**
+ * Job state in the `jobs` table, so that it outlives the process. `currentDb`
+ * gives the open data set's database: a job's row lives in the database it was
+ * started on (and is updated there even after the page switched to another),
+ * and reads look in the open one. The first time a database is seen, its jobs
+ * still marked queued or running (left by a process that has gone) are marked
+ * interrupted.
+ */
+export function databaseJobStore(currentDb: () => Db, keep = 1000): JobStore {
+  const home = new Map<string, Db>();
+  const swept = new WeakSet<Db>();
+  let sweepMessage: string | null = null;
+  const sweep = (db: Db) => {
+    if (swept.has(db)) return;
+    swept.add(db);
+    if (sweepMessage !== null) interrupt(db, sweepMessage);
+  };
+  const interrupt = (db: Db, message: string) =>
+    db
+      .prepare("UPDATE jobs SET status = 'interrupted', error_json = ?, finished_at = COALESCE(finished_at, ?) WHERE status IN ('queued', 'running')")
+      .run(JSON.stringify({ code: "interrupted", message }), new Date().toISOString()).changes;
+  const open = () => {
+    const db = currentDb();
+    sweep(db);
+    return db;
+  };
   return {
     insert(v: JobView, origin: JobOrigin) {
-      insert.run({
+      const db = open();
+      home.set(v.id, db);
+      db.prepare(
+        `INSERT INTO jobs (id, kind, status, request_json, inputs_json, progress_json, error_json, result_json, created_at, finished_at)
+         VALUES (@id, @kind, @status, @request, @inputs, @progress, @error, NULL, @createdAt, @finishedAt)`,
+      ).run({
         id: v.id,
         kind: v.kind,
         status: v.status,
@@ -49,25 +70,42 @@ export function databaseJobStore(db: Db, keep = 1000): JobStore {
         createdAt: v.createdAt,
         finishedAt: v.finishedAt,
       });
-      trim.run(keep);
+      db.prepare("DELETE FROM jobs WHERE status NOT IN ('queued', 'running') AND id NOT IN (SELECT id FROM jobs ORDER BY created_at DESC LIMIT ?)").run(keep);
     },
     update(v: JobView) {
-      update.run({ id: v.id, status: v.status, progress: JSON.stringify(v.progress), error: v.error ? JSON.stringify(v.error) : null, result: resultJson(v), finishedAt: v.finishedAt });
+      const db = home.get(v.id) ?? open();
+      if (!db.open) return;
+      db.prepare("UPDATE jobs SET status = @status, progress_json = @progress, error_json = @error, result_json = @result, finished_at = @finishedAt WHERE id = @id").run({
+        id: v.id,
+        status: v.status,
+        progress: JSON.stringify(v.progress),
+        error: v.error ? JSON.stringify(v.error) : null,
+        result: resultJson(v),
+        finishedAt: v.finishedAt,
+      });
+      if (v.status !== "queued" && v.status !== "running") home.delete(v.id);
     },
     get(id: string) {
-      const r = db.prepare("SELECT * FROM jobs WHERE id = ?").get(id) as Record<string, unknown> | undefined;
+      const r = (home.get(id) ?? open()).prepare("SELECT * FROM jobs WHERE id = ?").get(id) as Record<string, unknown> | undefined;
       return r ? toView(r) : null;
     },
     list(limit: number) {
-      return (db.prepare("SELECT * FROM jobs ORDER BY created_at DESC, rowid DESC LIMIT ?").all(limit) as Record<string, unknown>[]).map((r) => {
+      return (open().prepare("SELECT * FROM jobs ORDER BY created_at DESC, rowid DESC LIMIT ?").all(limit) as Record<string, unknown>[]).map((r) => {
         const { request: _r, inputs: _i, ...rest } = toView({ ...r, result_json: null });
         return rest;
       });
     },
     interruptUnfinished(message: string) {
-      return db
-        .prepare("UPDATE jobs SET status = 'interrupted', error_json = ?, finished_at = COALESCE(finished_at, ?) WHERE status IN ('queued', 'running')")
-        .run(JSON.stringify({ code: "interrupted", message }), new Date().toISOString()).changes;
+      sweepMessage = message;
+      const db = currentDb();
+      swept.add(db);
+      return interrupt(db, message);
     },
   };
+}
+
+/** The kind and the API request a stored job was started from (null: no such job). */
+export function storedJobRequest(db: Db, id: string): { kind: string; request: { path: string; body: unknown } | null } | null {
+  const r = db.prepare("SELECT kind, request_json FROM jobs WHERE id = ?").get(id) as { kind: string; request_json: string | null } | undefined;
+  return r ? { kind: r.kind, request: r.request_json ? JSON.parse(r.request_json) : null } : null;
 }

@@ -49,29 +49,25 @@ export function applyMigrations(db: Database, migrations = loadMigrations()): nu
       `This database was written by a newer morphogauge (schema ${current}; this version knows up to ${newest}). Update morphogauge; the file was not changed.`,
     );
   }
-  for (const m of migrations) {
-    if (m.version <= current) continue;
-    const step = STEPS[m.version];
-    // PRAGMA foreign_keys is ignored inside a transaction: switch it off first, so that
-    // dropping a rebuilt table neither cascades nor fails, then check every key before committing.
-    const foreignKeys = db.pragma("foreign_keys", { simple: true }) as number;
-    if (step) db.pragma("foreign_keys = OFF");
-    try {
+  // A migration may rebuild a table that others reference (create, copy, drop, rename), which
+  // needs foreign keys off while it runs; they are checked before each migration commits.
+  // Source: SQLite documentation, "Making Other Kinds Of Table Schema Changes" (ALTER TABLE).
+  const foreignKeys = db.pragma("foreign_keys", { simple: true }) as number;
+  db.pragma("foreign_keys = OFF");
+  try {
+    for (const m of migrations) {
+      if (m.version <= current) continue;
       db.transaction(() => {
-        step?.(db);
+        STEPS[m.version]?.(db);
         db.exec(m.sql);
-        if (step) {
-          const broken = db.pragma("foreign_key_check") as { table: string; rowid: number; parent: string }[];
-          if (broken.length > 0) {
-            throw new Error(`migration ${m.name} would leave ${broken.length} broken reference(s), first ${broken[0].table} row ${broken[0].rowid} → ${broken[0].parent}; nothing was changed`);
-          }
-        }
+        const broken = db.pragma("foreign_key_check") as unknown[];
+        if (broken.length > 0) throw new Error(`migration ${m.name} leaves ${broken.length} broken references; the file was not changed`);
         db.pragma(`user_version = ${m.version}`);
       })();
-    } finally {
-      if (step && foreignKeys) db.pragma("foreign_keys = ON");
+      applied.push(m.version);
     }
-    applied.push(m.version);
+  } finally {
+    db.pragma(`foreign_keys = ${foreignKeys ? "ON" : "OFF"}`);
   }
   return applied;
 }

@@ -3,6 +3,7 @@ import type { Db } from "../../db/connection.ts";
 import { databaseJobStore } from "../../db/jobs.ts";
 import { JobRunner } from "../jobs/jobRunner.ts";
 import { ServerLimits } from "../serverLimits.ts";
+import type { DataSets } from "../services/datasets/dataSets.ts";
 import { UploadReader } from "../services/uploadReader.ts";
 import { apiReferencePage, apiReferencePolicy } from "./apiReferencePage.ts";
 import { accessToken } from "./guards/accessToken.ts";
@@ -14,12 +15,16 @@ import { errorHandler, notFoundHandler } from "./httpError.ts";
 import { mountRoutes } from "./mountRoutes.ts";
 import { openApiDocument } from "./openApiDocument.ts";
 import { ALL_ROUTES } from "./routes/allRoutes.ts";
+import { TOOL_VERSION } from "../version.ts";
 
-export const API_VERSION = "0.1.0";
+export const API_VERSION = TOOL_VERSION;
 
 export interface AppOptions {
-  db: Db;
-  /** Runs long analyses in worker threads; one is made (keeping its state in `db`) if not given. */
+  /** The database, when the server has only one (tests); otherwise `datasets`. */
+  db?: Db;
+  /** The demo and the lab's data sets, switchable from the page; requests go to the open one. */
+  datasets?: DataSets;
+  /** Runs long analyses in worker threads; one is made (keeping each job's state in its data set's database) if not given. */
   jobs?: JobRunner;
   /** Folder with the built client (index.html, bundle); omitted in API-only tests. */
   clientDir?: string;
@@ -37,13 +42,20 @@ export type App = express.Express & { jobs: JobRunner; uploads: UploadReader; cl
 /** The express application: JSON API under /api/, its reference at /api/docs, the client at /. */
 export function createApp(options: AppOptions): App {
   const app = express();
+  const datasets = options.datasets ?? null;
+  const single = options.db;
+  if (!datasets && !single) throw new Error("createApp needs a database or data sets");
+  const currentDb = () => datasets?.db ?? single!;
   const limits = options.limits ?? ServerLimits.parse({});
   const jobs =
     options.jobs ??
-    new JobRunner({ log: options.log, store: databaseJobStore(options.db), maxConcurrent: limits.workers, maxQueued: limits.maxQueue, timeoutMs: limits.jobTimeoutMin * 60_000 });
+    new JobRunner({ log: options.log, store: databaseJobStore(currentDb), maxConcurrent: limits.workers, maxQueued: limits.maxQueue, timeoutMs: limits.jobTimeoutMin * 60_000 });
   const uploads = new UploadReader(limits);
   app.disable("x-powered-by");
-  app.set("database path", options.db.name);
+  app.use((req, _res, next) => {
+    req.app.set("database path", currentDb().name);
+    next();
+  });
   app.use(securityHeaders);
   app.use(allowedHost(options.allowedHosts ?? []));
   app.use(sameOrigin);
@@ -61,7 +73,7 @@ export function createApp(options: AppOptions): App {
   app.get("/api/docs", (_req, res) => {
     res.set("Content-Security-Policy", apiReferencePolicy(page)).type("html").send(page);
   });
-  mountRoutes(app, ALL_ROUTES, { db: options.db, jobs, limits, uploads });
+  mountRoutes(app, ALL_ROUTES, { db: currentDb, datasets, jobs, limits, uploads });
   app.use("/api", notFoundHandler);
   // Source maps are never served: the bundle is built without them, and a stray one stays private.
   if (options.clientDir) {

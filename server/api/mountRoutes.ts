@@ -4,11 +4,12 @@ import type { JobRunner } from "../jobs/jobRunner.ts";
 import type { ServerLimits } from "../serverLimits.ts";
 import type { UploadReader } from "../services/uploadReader.ts";
 import { UserError } from "../userError.ts";
+import type { DataSets } from "../services/datasets/dataSets.ts";
 import { requestValidationError } from "./httpError.ts";
 import type { RouteDefinition } from "./route.ts";
 
 /** Attach each route with zod validation of params, query and body before its handler runs. */
-export function mountRoutes(app: Express, routes: RouteDefinition[], services: { db: Db; jobs: JobRunner; limits: ServerLimits; uploads: UploadReader }): void {
+export function mountRoutes(app: Express, routes: RouteDefinition[], services: { db: () => Db; datasets: DataSets | null; jobs: JobRunner; limits: ServerLimits; uploads: UploadReader }): void {
   for (const route of routes) {
     app[route.method](route.path, async (req: Request, res: Response, next: NextFunction) => {
       try {
@@ -24,7 +25,7 @@ export function mountRoutes(app: Express, routes: RouteDefinition[], services: {
         const params = parse(route.params, req.params, "params");
         const query = parse(route.query, req.query, "query");
         const body = route.multipart ? undefined : parse(route.body, req.body, "body");
-        const result = await route.handler({ query, body, params, db: services.db, jobs: services.jobs, limits: services.limits, uploads: services.uploads, req, res });
+        const result = await route.handler({ query, body, params, db: services.db(), datasets: services.datasets, jobs: services.jobs, limits: services.limits, uploads: services.uploads, req, res });
         if (result === undefined || res.headersSent) return;
         if (route.status && res.statusCode === 200) res.status(route.status);
         res.json(result);

@@ -4,11 +4,12 @@ import { createApp } from "../api/createApp.ts";
 import { buildClient } from "../api/buildClient.ts";
 import { generateToken } from "../api/guards/accessToken.ts";
 import { isLoopbackAddress } from "../api/guards/requestHost.ts";
-import { isEmpty, loadDemoData } from "../services/demoData.ts";
 import { limitsFromEnv } from "../serverLimits.ts";
+import { resolve } from "node:path";
+import { defaultDatabasePath, defaultDemoDatabasePath } from "../../db/connection.ts";
+import { DataSets } from "../services/datasets/dataSets.ts";
 import { numberOption } from "./cliNumbers.ts";
 import { COMMON_HELP, COMMON_OPTIONS, type Command } from "./command.ts";
-import { openCliDatabase } from "./openCliDatabase.ts";
 import { UserError } from "../userError.ts";
 
 /** Seconds a stop may take before the process exits regardless. */
@@ -27,7 +28,10 @@ export const serveCommand: Command = {
   summary: "run the lab server and its browser page",
   help: `Usage: morphogauge serve [--port 5178] [--host 127.0.0.1] [--demo] [options]
 
-Serves the browser page and the JSON API (reference at /api/docs).
+Serves the browser page and the JSON API (reference at /api/docs). It opens
+your database (--db); the page shows which database is open and switches
+between it, the invented demo ($MORPHOGAUGE_DEMO_DB, else ./morphogauge-demo.db,
+filled the first time) and new data sets created beside your file.
 
   --port N          port to listen on (default 5178; 0 picks a free one)
   --host H          address to bind (default 127.0.0.1, this machine only). Any other
@@ -35,7 +39,7 @@ Serves the browser page and the JSON API (reference at /api/docs).
                     $MORPHOGAUGE_TOKEN, or one generated and printed once at start
   --allow-host NAME a host name colleagues use to reach this server (repeatable);
                     requests addressed to any other name are refused
-  --demo            load the demo data first if the database is empty
+  --demo            open the invented demo data set first (npm start does)
 
 Limits (queue, workers, time-outs, upload sizes, compute budget) are set with
 MORPHOGAUGE_* environment variables; see the README, "Safety". Ctrl+C or SIGTERM
@@ -51,13 +55,15 @@ ${COMMON_HELP}`,
     const envToken = io.env.MORPHOGAUGE_TOKEN && io.env.MORPHOGAUGE_TOKEN.length > 0 ? io.env.MORPHOGAUGE_TOKEN : null;
     if (envToken !== null && envToken.length < 16) throw new UserError("weak-token", "MORPHOGAUGE_TOKEN must be at least 16 characters long; leave it unset to have one generated.");
     const token = envToken ?? (shared ? generateToken() : null);
-    const { db, path, created } = await openCliDatabase(values.db as string | undefined, io);
-    if (values.demo && isEmpty(db)) {
-      const reports = loadDemoData(db);
-      io.stderr(`${created ? "created" : "filled"} ${path} with the demo data (${reports.filter((r) => r.status === "imported").length} files)\n`);
-    }
+    const datasets = await DataSets.open({
+      userPath: resolve(io.cwd, (values.db as string | undefined) ?? defaultDatabasePath(io.env)),
+      demoPath: resolve(io.cwd, defaultDemoDatabasePath(io.env)),
+      start: values.demo ? "demo" : "user",
+      log: (m) => io.stderr(m + "\n"),
+    });
+    const path = datasets.current().path;
     const clientDir = await buildClient();
-    const app = createApp({ db, clientDir, limits, token, allowedHosts: namesFor(host, (values["allow-host"] as string[] | undefined) ?? []), log: (m) => io.stderr(m + "\n") });
+    const app = createApp({ datasets, clientDir, limits, token, allowedHosts: namesFor(host, (values["allow-host"] as string[] | undefined) ?? []), log: (m) => io.stderr(m + "\n") });
     const server = app.listen(port, host);
     await new Promise<void>((resolve, reject) => {
       server.once("listening", resolve);
@@ -69,7 +75,7 @@ ${COMMON_HELP}`,
     const url = `http://${host.includes(":") ? `[${host}]` : host}:${address.port}/`;
     if (values.json) io.stdout(JSON.stringify({ url, database: path, ...(token && !envToken ? { token } : {}) }) + "\n");
     else {
-      io.stdout(`morphogauge is serving ${path}\nOpen ${url} in a browser (Ctrl+C stops).\n`);
+      io.stdout(`morphogauge is serving ${path}${values.demo ? " (the invented demo data)" : ""}\nOpen ${url} in a browser (Ctrl+C stops).\n`);
       if (shared) io.stdout(`This server is reachable from other machines: anyone with the address and the access token can read and change this database.\n`);
       if (token && !envToken) io.stdout(`Access token (give it to colleagues; it is shown only now): ${token}\n`);
       else if (token) io.stdout("Access token: the one in MORPHOGAUGE_TOKEN.\n");
@@ -104,7 +110,7 @@ ${COMMON_HELP}`,
       process.on("SIGINT", onInt);
       process.on("SIGTERM", onTerm);
     });
-    db.close();
+    datasets.close();
     // Anything still holding the event loop open (a stuck socket) must not keep a stopped server alive.
     setTimeout(() => process.exit(process.exitCode ?? 0), 1000).unref();
     return 0;

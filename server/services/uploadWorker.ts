@@ -1,6 +1,7 @@
 import { parentPort } from "node:worker_threads";
 import type { ResolvedImportOptions } from "../import/importOptions.ts";
-import { parseProfileFile, type SourceFile } from "../import/parseProfileFile.ts";
+import type { SourceFile } from "../import/parseProfileFile.ts";
+import { parseForImport } from "./imports/parseForImport.ts";
 import type { ParsedImport } from "../import/records.ts";
 import type { ServerLimits } from "../serverLimits.ts";
 import { isUserError } from "../userError.ts";
@@ -31,7 +32,7 @@ export function parseUploads(request: UploadRequest): ParseOutcome[] {
   return request.files.map((file): ParseOutcome => {
     try {
       checkTableShape(file.name, file.bytes, request.limits);
-      const parsed = parseProfileFile(file, request.options, request.meta);
+      const parsed = parseForImport(file, request.options, request.meta);
       checkParsedImport(parsed);
       return { ok: true, parsed };
     } catch (e) {

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { storedJobRequest } from "../../../db/jobs.ts";
 import { UserError } from "../../userError.ts";
 import { defineRoute, type RouteDefinition } from "../route.ts";
 
@@ -63,10 +64,10 @@ export const jobRoutes = [
     params: JobParams,
     status: 202,
     async handler(ctx) {
-      const stored = ctx.db.prepare("SELECT kind, request_json FROM jobs WHERE id = ?").get(ctx.params.id) as { kind: string; request_json: string | null } | undefined;
-      if (!stored) throw new UserError("unknown-job", `No job with id ${ctx.params.id}.`, { status: 404 });
-      if (!stored.request_json) throw new UserError("cannot-rerun", `Job ${ctx.params.id} (${stored.kind}) kept no request to start it from; start the analysis again from its page.`, { status: 409 });
-      const request = JSON.parse(stored.request_json) as { path: string; body: unknown };
+      const stored = storedJobRequest(ctx.db, ctx.params.id);
+      if (!stored) throw new UserError("unknown-job", `No job with id ${ctx.params.id} in the open data set.`, { status: 404 });
+      const request = stored.request;
+      if (!request) throw new UserError("cannot-rerun", `Job ${ctx.params.id} (${stored.kind}) kept no request to start it from; start the analysis again from its page.`, { status: 409 });
       // Imported here, not at the top: the list of all routes includes this one.
       const { ALL_ROUTES } = await import("./allRoutes.ts");
       const route = ALL_ROUTES.find((r: RouteDefinition) => r.method === "post" && r.path === request.path);
