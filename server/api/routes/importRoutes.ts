@@ -12,7 +12,7 @@ import { CONFLICT_CHOICES } from "../../services/imports/resolveImport.ts";
 import { sortSourceFiles } from "../../services/imports/sortSourceFiles.ts";
 import { UserError } from "../../userError.ts";
 import { requestValidationError } from "../httpError.ts";
-import { readMultipart } from "../readMultipart.ts";
+import { joinChunks, readMultipart, type UploadedFile } from "../readMultipart.ts";
 import { defineRoute, IdParams } from "../route.ts";
 
 /** Form fields of an upload: the import options, as text. */
@@ -47,8 +47,39 @@ async function readUpload(req: Parameters<typeof readMultipart>[0], limits: Serv
   const options = ImportOptions.parse(importOptions);
   const given = body.files.files ?? [];
   if (given.length === 0) throw new UserError("no-files", 'No file was uploaded: send at least one file in the "files" field.', { status: 400 });
-  const { profiles: files, meta, notes } = sortSourceFiles(given, body.files.meta?.[0], options);
+  const { profiles: files, meta, notes } = sortWithoutReading(given, body.files.meta?.[0], options);
   return { files, meta, options, onConflict, notes };
+}
+
+/** Bytes of a file's beginning to sort it by: more than the sniffer ever reads, so the answer is the same as for the whole file. */
+const SORT_PREFIX_BYTES = 1024 * 1024;
+
+/**
+ * Tell side files from profile files by the beginning of each upload only, so
+ * that a huge upload is never joined into one buffer on the request thread;
+ * the whole file is read in the worker thread.
+ */
+function sortWithoutReading(given: SourceFile[], meta: SourceFile | undefined, options: Parameters<typeof sortSourceFiles>[2]) {
+  const original = new Map<SourceFile, SourceFile>();
+  const stand = (f: SourceFile): SourceFile => {
+    const chunks = (f as Partial<UploadedFile>).chunks;
+    const proxy = { name: f.name, bytes: chunks ? joinChunks(prefixChunks(chunks, SORT_PREFIX_BYTES)) : f.bytes };
+    original.set(proxy, f);
+    return proxy;
+  };
+  const sorted = sortSourceFiles(given.map(stand), meta ? stand(meta) : undefined, options);
+  return { profiles: sorted.profiles.map((p) => original.get(p)!), meta: sorted.meta ? original.get(sorted.meta) : undefined, notes: sorted.notes };
+}
+
+function prefixChunks(chunks: Uint8Array[], bytes: number): Uint8Array[] {
+  const out: Uint8Array[] = [];
+  let n = 0;
+  for (const c of chunks) {
+    if (n >= bytes) break;
+    out.push(c);
+    n += c.length;
+  }
+  return out;
 }
 
 /** The worker thread's outcome for each file, as a parse function: the parsed import, or its refusal thrown. */
