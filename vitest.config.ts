@@ -5,8 +5,8 @@ export default defineConfig({
     include: ["test/**/*.test.ts"],
     // The slow simulations under test/validate/ run with `npm run validate` (vitest.validate.config.ts).
     exclude: [...configDefaults.exclude, "test/validate/**"],
-    testTimeout: 60_000,
-    hookTimeout: 60_000,
+    testTimeout: 180_000,
+    hookTimeout: 180_000,
     pool: "forks",
   },
 });
