@@ -88,12 +88,12 @@ export function listFits(db: Db, filter: FitFilter = {}): StoredFit[] {
   const conds: string[] = [];
   const params: unknown[] = [];
   if (filter.profileIds) {
-    conds.push(`profile_id IN (${filter.profileIds.map(() => "?").join(",") || "NULL"})`);
-    params.push(...filter.profileIds);
+    conds.push("profile_id IN (SELECT value FROM json_each(?))");
+    params.push(JSON.stringify(filter.profileIds));
   }
   if (filter.ids) {
-    conds.push(`id IN (${filter.ids.map(() => "?").join(",") || "NULL"})`);
-    params.push(...filter.ids);
+    conds.push("id IN (SELECT value FROM json_each(?))");
+    params.push(JSON.stringify(filter.ids));
   }
   if (filter.model !== undefined) { conds.push("model = ?"); params.push(filter.model); }
   if (filter.optionsHash !== undefined) { conds.push("options_hash = ?"); params.push(filter.optionsHash); }

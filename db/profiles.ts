@@ -53,15 +53,16 @@ function whereClause(f: ProfileFilter): { sql: string; params: unknown[] } {
   const params: unknown[] = [];
   if (f.genotype !== undefined) { conds.push("e.genotype = ?"); params.push(f.genotype); }
   if (f.genotypes !== undefined) {
-    conds.push(`e.genotype IN (${f.genotypes.map(() => "?").join(",") || "NULL"})`);
-    params.push(...f.genotypes);
+    conds.push("e.genotype IN (SELECT value FROM json_each(?))");
+    params.push(JSON.stringify(f.genotypes));
   }
   if (f.channel !== undefined) { conds.push("p.channel = ?"); params.push(f.channel); }
   if (f.embryo !== undefined) { conds.push("e.label = ?"); params.push(f.embryo); }
   if (f.importId !== undefined) { conds.push("p.import_id = ?"); params.push(f.importId); }
   if (f.profileIds !== undefined) {
-    conds.push(`p.id IN (${f.profileIds.map(() => "?").join(",") || "NULL"})`);
-    params.push(...f.profileIds);
+    // One JSON parameter rather than one per id: SQLite caps bound variables at 32,766.
+    conds.push("p.id IN (SELECT value FROM json_each(?))");
+    params.push(JSON.stringify(f.profileIds));
   }
   for (const [key, value] of Object.entries(f.metadata ?? {})) {
     if (EMBRYO_COLUMNS.has(key)) conds.push(`e.${key} = ?`);

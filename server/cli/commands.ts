@@ -21,6 +21,8 @@ export const COMMANDS: CommandEntry[] = [
   lazy("simulate", "what if: run the build-up of a gradient forward for given D, k and flux", async () => (await import("./simulateCommand.ts")).simulateCommand),
   lazy("report", "write a self-contained HTML report with figures (PNG 300 dpi, SVG) and CSV tables", async () => (await import("./reportCommand.ts")).reportCommand),
   lazy("serve", "run the lab server and its browser page", async () => (await import("./serveCommand.ts")).serveCommand),
+  lazy("backup", "write a consistent copy of the database (safe while the server runs)", async () => (await import("./backupCommand.ts")).backupCommand),
+  lazy("restore", "replace the database with a backup (refuses to overwrite without --force)", async () => (await import("./restoreCommand.ts")).restoreCommand),
 ];
 
 function lazy(name: string, summary: string, load: () => Promise<Command>): CommandEntry {

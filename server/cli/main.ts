@@ -1,4 +1,7 @@
+import { resolve } from "node:path";
 import { parseArgs } from "node:util";
+import { databaseUserError } from "../../db/databaseError.ts";
+import { defaultDatabasePath } from "../../db/connection.ts";
 import { isUserError } from "../userError.ts";
 import type { CommandEntry, CommandIo } from "./command.ts";
 import { COMMANDS } from "./commands.ts";
@@ -45,7 +48,9 @@ export async function runCli(argv: string[], io: CommandIo): Promise<number> {
   }
   try {
     return await command.run(parsed.values as Record<string, string | boolean | string[] | undefined>, parsed.positionals, io);
-  } catch (e) {
+  } catch (caught) {
+    // A read-only, full, locked or damaged database is the environment, not a bug: say which file and what to do.
+    const e = isUserError(caught) ? caught : (databaseUserError(caught, resolve(io.cwd, (parsed.values.db as string | undefined) ?? defaultDatabasePath(io.env))) ?? caught);
     if (isUserError(e)) {
       if (parsed.values.json) io.stdout(JSON.stringify({ error: { code: e.code, message: e.message, issues: e.issues } }, null, 2) + "\n");
       io.stderr(`morphogauge ${name}: ${e.message}\n`);

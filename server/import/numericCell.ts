@@ -3,7 +3,8 @@ const MISSING = new Set(["", "nan", "na", "n/a", "null", "none", "-", "--", "#n/
 
 export type CellValue = { kind: "number"; value: number } | { kind: "missing" } | { kind: "invalid" };
 
-const PLAIN_NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+// One way to match each number (no nested choices), so a long run of digits cannot make the match take quadratic time.
+const PLAIN_NUMBER = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
 
 /**
  * Read one cell as a number. With decimal mark ',' the cell "12,5" is 12.5;

@@ -169,8 +169,15 @@ export interface FitRunResult {
 
 const est = (p: ParameterEstimate | undefined): EstimateJson | null => (p ? { value: p.value, se: p.se, ci95: p.ci95 } : null);
 
-/** Store the fits (replacing those with identical options) and global fits, and answer with their summaries. */
+/**
+ * Store the fits (replacing those with identical options) and global fits in
+ * one transaction, and answer with their summaries: a failure part-way stores none of them.
+ */
 export function storeFitOutput(db: Db, input: FitTaskInput, output: FitTaskOutput): FitRunResult {
+  return db.transaction(() => storeFitOutputNow(db, input, output))();
+}
+
+function storeFitOutputNow(db: Db, input: FitTaskInput, output: FitTaskOutput): FitRunResult {
   const meta = new Map(input.profiles.map((p) => [p.profileId, p]));
   const ids = storeFits(
     db,
