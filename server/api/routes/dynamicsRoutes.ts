@@ -9,6 +9,7 @@ import { simulateBuildUp } from "../../services/dynamics/simulateService.ts";
 import { prepareTimeCourse, storeTimeCourse, type TimeCourseGroupOutput } from "../../services/dynamics/timeCourseService.ts";
 import { FrapFitOptions } from "../../analysis/dynamics/frap/frapFitOptions.ts";
 import { defineRoute, IdParams } from "../route.ts";
+import { submitJob } from "../submitJob.ts";
 
 const DYNAMICS_KINDS = ["dynamics", "frap", "combine", "simulation"] as const;
 
@@ -21,9 +22,12 @@ export const dynamicsRoutes = [
     description: "Fits D, k and the source strength jointly per genotype × channel, with λ, half-life, τ(x), the D–k correlation and the profile likelihood of k. Times are seconds since production started.",
     body: TimeCourseRequest,
     status: 202,
-    handler({ db, jobs, body }) {
-      const input = prepareTimeCourse(db, body);
-      return jobs.submit("dynamics", input, (output) => storeTimeCourse(db, input, output as TimeCourseGroupOutput[]));
+    handler(ctx) {
+      const input = prepareTimeCourse(ctx.db, ctx.body);
+      return submitJob<TimeCourseGroupOutput[]>(ctx, "dynamics", input, {
+        profileIds: input.groups.flatMap((g) => g.profileIds),
+        store: (output) => storeTimeCourse(ctx.db, input, output),
+      });
     },
   }),
   defineRoute({
@@ -34,9 +38,9 @@ export const dynamicsRoutes = [
     description: "Each file: time (s; pre-bleach at negative times or flagged), bleached-region intensity with optional reference and background, or a normalised curve. The post-bleach intensity is fitted.",
     body: FrapRequest,
     status: 202,
-    handler({ db, jobs, body }) {
-      const input = prepareFrap(body);
-      return jobs.submit("frap", input, (output) => storeFrap(db, input, output as FrapTaskOutput));
+    handler(ctx) {
+      const input = prepareFrap(ctx.body);
+      return submitJob<FrapTaskOutput>(ctx, "frap", input, { profileIds: [], store: (output) => storeFrap(ctx.db, input, output) });
     },
   }),
   defineRoute({
@@ -46,9 +50,9 @@ export const dynamicsRoutes = [
     summary: "Fit the invented demo FRAP curves (spot of radius 3 µm) with the given options (a background job)",
     body: z.strictObject({ options: FrapFitOptions.optional() }),
     status: 202,
-    handler({ db, jobs, body }) {
-      const input = prepareFrap(FrapRequest.parse({ files: demoFrapFiles(), options: body.options ?? { geometry: { kind: "spot", radiusUm: 3 } } }));
-      return jobs.submit("frap", input, (output) => storeFrap(db, input, output as FrapTaskOutput));
+    handler(ctx) {
+      const input = prepareFrap(FrapRequest.parse({ files: demoFrapFiles(), options: ctx.body.options ?? { geometry: { kind: "spot", radiusUm: 3 } } }));
+      return submitJob<FrapTaskOutput>(ctx, "frap", input, { profileIds: [], store: (output) => storeFrap(ctx.db, input, output) });
     },
   }),
   defineRoute({
