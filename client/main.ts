@@ -7,12 +7,14 @@ import { renderDataView } from "./views/dataView.ts";
 import { renderFitsView } from "./views/fitsView.ts";
 import { renderGroupsView } from "./views/groupsView.ts";
 import { renderPrecisionView } from "./views/precisionView.ts";
+import { renderDynamicsView } from "./views/dynamicsView.ts";
 
 const RENDER: Record<ViewId, (root: HTMLElement) => void> = {
   data: renderDataView,
   fits: renderFitsView,
   precision: renderPrecisionView,
   groups: renderGroupsView,
+  dynamics: renderDynamicsView,
 };
 
 const app = document.getElementById("app")!;

@@ -4,6 +4,7 @@ export const VIEWS = [
   { id: "fits", title: "Fits" },
   { id: "precision", title: "Precision" },
   { id: "groups", title: "Groups" },
+  { id: "dynamics", title: "Dynamics" },
 ] as const;
 
 export type ViewId = (typeof VIEWS)[number]["id"];

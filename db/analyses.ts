@@ -1,7 +1,7 @@
 import type { Db } from "./connection.ts";
 import { canonicalJson, stableHash } from "./stableHash.ts";
 
-export type AnalysisKind = "global-fit" | "precision" | "comparison" | "tracking" | "plan";
+export type AnalysisKind = "global-fit" | "precision" | "comparison" | "tracking" | "plan" | "dynamics" | "frap" | "combine" | "simulation";
 
 export interface AnalysisToStore {
   kind: AnalysisKind;

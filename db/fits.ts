@@ -1,4 +1,5 @@
 import type { Db } from "./connection.ts";
+import { packNumbers, unpackNumbers } from "./packedNumbers.ts";
 import { canonicalJson, stableHash } from "./stableHash.ts";
 
 export interface FitToStore {
@@ -36,7 +37,9 @@ export interface StoredFit {
 /**
  * Store fits in one transaction. The same profile, model and options replace
  * the earlier fit; other options add a new one, so every stored number keeps
- * the settings that produced it.
+ * the settings that produced it. Long number arrays in the result (positions,
+ * fitted curve, residuals) are stored packed (db/packedNumbers.ts); readers
+ * here unpack them.
  */
 export function storeFits(db: Db, fits: FitToStore[], now: () => Date = () => new Date()): number[] {
   const upsert = db.prepare(
@@ -48,19 +51,16 @@ export function storeFits(db: Db, fits: FitToStore[], now: () => Date = () => ne
        result_json = excluded.result_json, created_at = excluded.created_at, setting_id = excluded.setting_id
      RETURNING id`,
   );
+  // A batch usually shares one set of options: canonicalise and hash each distinct set once.
+  const hashes = new Map<string, string>();
+  const createdAt = now().toISOString();
   return db.transaction(() =>
-    fits.map(
-      (f) =>
-        (
-          upsert.get({
-            ...f,
-            optionsHash: stableHash(f.options),
-            options: canonicalJson(f.options),
-            result: JSON.stringify(f.result),
-            createdAt: now().toISOString(),
-          }) as { id: number }
-        ).id,
-    ),
+    fits.map((f) => {
+      const options = canonicalJson(f.options);
+      let optionsHash = hashes.get(options);
+      if (optionsHash === undefined) hashes.set(options, (optionsHash = stableHash(f.options)));
+      return (upsert.get({ ...f, optionsHash, options, result: JSON.stringify(packNumbers(f.result)), createdAt }) as { id: number }).id;
+    }),
   )();
 }
 
@@ -84,7 +84,7 @@ function toStored(r: Record<string, unknown>): StoredFit {
     lambdaUm: r.lambda_um as number | null,
     lambdaSeUm: r.lambda_se_um as number | null,
     aicc: r.aicc as number | null,
-    result: JSON.parse(r.result_json as string),
+    result: unpackNumbers(JSON.parse(r.result_json as string)),
     createdAt: r.created_at as string,
     settingId: (r.setting_id as number | null) ?? null,
   };
@@ -94,12 +94,12 @@ export function listFits(db: Db, filter: FitFilter = {}): StoredFit[] {
   const conds: string[] = [];
   const params: unknown[] = [];
   if (filter.profileIds) {
-    conds.push(`profile_id IN (${filter.profileIds.map(() => "?").join(",") || "NULL"})`);
-    params.push(...filter.profileIds);
+    conds.push("profile_id IN (SELECT value FROM json_each(?))");
+    params.push(JSON.stringify(filter.profileIds));
   }
   if (filter.ids) {
-    conds.push(`id IN (${filter.ids.map(() => "?").join(",") || "NULL"})`);
-    params.push(...filter.ids);
+    conds.push("id IN (SELECT value FROM json_each(?))");
+    params.push(JSON.stringify(filter.ids));
   }
   if (filter.model !== undefined) { conds.push("model = ?"); params.push(filter.model); }
   if (filter.optionsHash !== undefined) { conds.push("options_hash = ?"); params.push(filter.optionsHash); }
@@ -138,6 +138,8 @@ export interface FitListItem {
   aicc: number | null;
   nPoints: number | null;
   window: { xMinUm?: number; xMaxUm?: number } | null;
+  /** The positions actually fitted (µm) and how they were chosen; null for fits stored before it was recorded. */
+  fittedWindow: { fromUm: number; toUm: number; startRule: string; endRule: string; description: string } | null;
   options: unknown;
   engineVersion: string;
   createdAt: string;
@@ -172,7 +174,8 @@ export function listFitItems(db: Db, filter: FitListFilter = {}): FitListItem[] 
               json_extract(f.result_json, '$.fit.parameters.background') AS background,
               json_extract(f.result_json, '$.fit.r2') AS r2,
               json_extract(f.result_json, '$.fit.n') AS n,
-              json_extract(f.options_json, '$.window') AS window, s.name AS setting_name
+              json_extract(f.options_json, '$.window') AS window,
+              json_extract(f.result_json, '$.fit.window') AS fitted_window, s.name AS setting_name
        FROM fits f JOIN profiles p ON p.id = f.profile_id JOIN embryos e ON e.id = p.embryo_id LEFT JOIN fit_settings s ON s.id = f.setting_id
        ${conds.length ? `WHERE ${conds.join(" AND ")}` : ""}
        ORDER BY e.genotype, e.label, p.channel, p.time_s, f.model`,
@@ -199,6 +202,7 @@ export function listFitItems(db: Db, filter: FitListFilter = {}): FitListItem[] 
     aicc: r.aicc as number | null,
     nPoints: r.n as number | null,
     window: parsed(r.window),
+    fittedWindow: parsed(r.fitted_window),
     options: JSON.parse(r.options_json as string),
     engineVersion: r.engine_version as string,
     createdAt: r.created_at as string,

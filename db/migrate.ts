@@ -1,6 +1,8 @@
 import { readdirSync, readFileSync } from "node:fs";
 import { fileURLToPath } from "node:url";
 import type { Database } from "better-sqlite3";
+import { UserError } from "../server/userError.ts";
+import { rebuildWithAutoincrement } from "./rebuildWithAutoincrement.ts";
 
 const MIGRATIONS_DIR = fileURLToPath(new URL("./migrations/", import.meta.url));
 
@@ -9,6 +11,15 @@ export interface Migration {
   name: string;
   sql: string;
 }
+
+/**
+ * Steps a migration's SQL cannot express, run just before that migration's SQL
+ * in the same transaction, with foreign keys off (table rebuilds) and every
+ * foreign key checked before the commit.
+ */
+const STEPS: Partial<Record<number, (db: Database) => void>> = {
+  4: (db) => void rebuildWithAutoincrement(db),
+};
 
 /** Numbered migrations `NNN_name.sql`, in order. */
 export function loadMigrations(dir = MIGRATIONS_DIR): Migration[] {
@@ -33,7 +44,8 @@ export function applyMigrations(db: Database, migrations = loadMigrations()): nu
   const current = schemaVersion(db);
   const newest = migrations.at(-1)?.version ?? 0;
   if (current > newest) {
-    throw new Error(
+    throw new UserError(
+      "database-too-new",
       `This database was written by a newer morphogauge (schema ${current}; this version knows up to ${newest}). Update morphogauge; the file was not changed.`,
     );
   }
@@ -46,6 +58,7 @@ export function applyMigrations(db: Database, migrations = loadMigrations()): nu
     for (const m of migrations) {
       if (m.version <= current) continue;
       db.transaction(() => {
+        STEPS[m.version]?.(db);
         db.exec(m.sql);
         const broken = db.pragma("foreign_key_check") as unknown[];
         if (broken.length > 0) throw new Error(`migration ${m.name} leaves ${broken.length} broken references; the file was not changed`);

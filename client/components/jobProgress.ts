@@ -32,7 +32,7 @@ export async function runJob<R>(container: HTMLElement, title: string, start: ()
   const show = (job: JobView) => {
     bar.value = Math.round(job.progress.fraction * 100);
     percent.textContent = formatPercent(job.progress.fraction);
-    stage.textContent = job.progress.stage;
+    stage.textContent = job.progress.etaS !== undefined && job.status === "running" ? `${job.progress.stage} · about ${timeLeft(job.progress.etaS)} left` : job.progress.stage;
     box.dataset.status = job.status;
   };
 
@@ -46,4 +46,11 @@ export async function runJob<R>(container: HTMLElement, title: string, start: ()
     else replaceChildren(container, errorNotice(e));
     return null;
   }
+}
+
+/** "40 s", "3 min", "2.5 h": a rough estimate, said roughly. */
+function timeLeft(s: number): string {
+  if (s < 90) return `${Math.max(1, Math.round(s))} s`;
+  if (s < 5400) return `${Math.round(s / 60)} min`;
+  return `${(s / 3600).toFixed(1)} h`;
 }

@@ -9,9 +9,15 @@ import { residualFigure } from "./residualFigure.ts";
 import type { FigureConfig } from "./scatterConfig.ts";
 import { sigmaXFigure } from "./sigmaXFigure.ts";
 import { trendFigure } from "./trendFigure.ts";
+import { buildUpFigure, buildUpResidualFigure } from "./buildUpFigure.ts";
+import { profileLikelihoodFigure } from "./profileLikelihoodFigure.ts";
+import { accumulationTimeFigure } from "./accumulationTimeFigure.ts";
+import { frapRecoveryFigure, frapResidualFigure } from "./frapRecoveryFigure.ts";
+import { simulationFigure } from "./simulationFigure.ts";
+import type { BuildUpFigureInput, FrapFigureInput, SimulationFigureInput } from "./dynamicsInputs.ts";
 
 /** Which API result a figure is drawn from. */
-export type FigureSource = "fit" | "precision" | "comparison" | "tracking" | "plan";
+export type FigureSource = "fit" | "precision" | "comparison" | "tracking" | "plan" | "dynamics" | "frap" | "simulation";
 
 /** The input type of each source. */
 export interface FigureSourceInputs {
@@ -20,6 +26,9 @@ export interface FigureSourceInputs {
   comparison: ComparisonFigureInput;
   tracking: TrackingFigureInput;
   plan: PlanFigureInput;
+  dynamics: BuildUpFigureInput;
+  frap: FrapFigureInput;
+  simulation: SimulationFigureInput;
 }
 
 export interface FigureOptions {
@@ -36,7 +45,7 @@ export interface FigureEntry<S extends FigureSource = FigureSource> {
 /** An entry of any source (a union, so each builder keeps its own input type). */
 export type AnyFigureEntry = { [S in FigureSource]: FigureEntry<S> }[FigureSource];
 
-export const FIGURE_KINDS = ["profile-fit", "residuals", "group-values", "ensemble", "sigma-x", "boundary", "decoding-map", "trend", "power"] as const;
+export const FIGURE_KINDS = ["profile-fit", "residuals", "group-values", "ensemble", "sigma-x", "boundary", "decoding-map", "trend", "power", "build-up", "build-up-residuals", "profile-likelihood-k", "accumulation-time", "frap-recovery", "frap-residuals", "simulation"] as const;
 export type FigureKind = (typeof FIGURE_KINDS)[number];
 
 const entry = <S extends FigureSource>(title: string, source: S, builder: FigureEntry<S>["builder"]): FigureEntry<S> => ({ title, source, builder });
@@ -52,6 +61,13 @@ export const FIGURE_REGISTRY = {
   "decoding-map": entry("Decoding map", "precision", (p) => decodingMapFigure(p)),
   trend: entry("Trend over stage, age, dosage or length", "tracking", (t) => trendFigure(t)),
   power: entry("Power against sample size", "plan", (p) => powerFigure(p)),
+  "build-up": entry("Build-up profiles with the joint fit", "dynamics", (b) => buildUpFigure(b)),
+  "build-up-residuals": entry("Residuals of the build-up fit", "dynamics", (b) => buildUpResidualFigure(b)),
+  "profile-likelihood-k": entry("Profile likelihood of k", "dynamics", (b) => profileLikelihoodFigure(b)),
+  "accumulation-time": entry("Local accumulation time τ(x)", "dynamics", (b) => accumulationTimeFigure(b)),
+  "frap-recovery": entry("FRAP recovery curves with fits", "frap", (f) => frapRecoveryFigure(f)),
+  "frap-residuals": entry("Residuals of the FRAP fits", "frap", (f) => frapResidualFigure(f)),
+  simulation: entry("What-if build-up", "simulation", (s) => simulationFigure(s)),
 } satisfies Record<FigureKind, AnyFigureEntry>;
 
 /** Kinds drawn from one source, in registry order. */

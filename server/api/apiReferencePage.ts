@@ -1,3 +1,5 @@
+import { createHash } from "node:crypto";
+
 /** A readable HTML page of the OpenAPI document (no scripts, everything escaped). */
 export function apiReferencePage(doc: Record<string, unknown>): string {
   const esc = (s: unknown) => String(s ?? "").replace(/[&<>"']/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;", "'": "&#39;" })[c]!);
@@ -36,4 +38,11 @@ function typeLabel(schema: Record<string, unknown>): string {
   if (Array.isArray(schema.enum)) return schema.enum.join(" | ");
   if (typeof schema.type === "string") return schema.type;
   return "";
+}
+
+/** The reference page's own policy: no scripts at all, and only its one inline style block, by hash. */
+export function apiReferencePolicy(page: string): string {
+  const style = /<style>([\s\S]*?)<\/style>/.exec(page)?.[1] ?? "";
+  const hash = createHash("sha256").update(style).digest("base64");
+  return `default-src 'self'; script-src 'none'; style-src 'sha256-${hash}'; object-src 'none'; frame-ancestors 'none'; base-uri 'self'`;
 }

@@ -1,6 +1,8 @@
 import type { ErrorRequestHandler, RequestHandler } from "express";
 import { z } from "zod";
+import { BusyError } from "../jobs/busyError.ts";
 import { isUserError, UserError } from "../userError.ts";
+import { databaseUserError } from "../../db/databaseError.ts";
 
 /** The API's error body: `{ error: { code, message, issues[] } }`. */
 export interface ErrorBody {
@@ -22,7 +24,17 @@ export const notFoundHandler: RequestHandler = (req, _res, next) => {
  * message; anything else is logged and answered with a plain 500, never a stack trace.
  */
 export function errorHandler(log: (message: string) => void = (m) => process.stderr.write(m + "\n")): ErrorRequestHandler {
-  return (err, _req, res, _next) => {
+  return (err, req, res, _next) => {
+    if (res.headersSent) {
+      req.socket.destroy();
+      return;
+    }
+    const environment = isUserError(err) ? null : databaseUserError(err, (req.app.get("database path") as string | undefined) ?? "in use");
+    if (environment) {
+      log(`database error: ${(err as Error).message}`);
+      err = environment;
+    }
+    if (err instanceof BusyError) res.set("Retry-After", String(err.retryAfterS));
     if (isUserError(err)) {
       const body: ErrorBody = { error: { code: err.code, message: err.message, issues: err.issues } };
       res.status(err.status).json(body);

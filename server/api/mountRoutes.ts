@@ -1,12 +1,15 @@
 import type { Express, NextFunction, Request, Response } from "express";
 import type { Db } from "../../db/connection.ts";
 import type { JobRunner } from "../jobs/jobRunner.ts";
+import type { ServerLimits } from "../serverLimits.ts";
+import type { UploadReader } from "../services/uploadReader.ts";
+import { UserError } from "../userError.ts";
 import type { DataSets } from "../services/datasets/dataSets.ts";
 import { requestValidationError } from "./httpError.ts";
 import type { RouteDefinition } from "./route.ts";
 
 /** Attach each route with zod validation of params, query and body before its handler runs. */
-export function mountRoutes(app: Express, routes: RouteDefinition[], services: { db: () => Db; datasets: DataSets | null; jobs: JobRunner }): void {
+export function mountRoutes(app: Express, routes: RouteDefinition[], services: { db: () => Db; datasets: DataSets | null; jobs: JobRunner; limits: ServerLimits; uploads: UploadReader }): void {
   for (const route of routes) {
     app[route.method](route.path, async (req: Request, res: Response, next: NextFunction) => {
       try {
@@ -16,10 +19,13 @@ export function mountRoutes(app: Express, routes: RouteDefinition[], services: {
           if (!r.success) throw requestValidationError(r.error, part);
           return r.data;
         };
+        if (route.body && !route.multipart && route.method !== "get" && !req.is("application/json")) {
+          throw new UserError("json-required", "Send the request body as JSON (Content-Type: application/json).", { status: 415 });
+        }
         const params = parse(route.params, req.params, "params");
         const query = parse(route.query, req.query, "query");
         const body = route.multipart ? undefined : parse(route.body, req.body, "body");
-        const result = await route.handler({ query, body, params, db: services.db(), datasets: services.datasets, jobs: services.jobs, req, res });
+        const result = await route.handler({ query, body, params, db: services.db(), datasets: services.datasets, jobs: services.jobs, limits: services.limits, uploads: services.uploads, req, res });
         if (result === undefined || res.headersSent) return;
         if (route.status && res.statusCode === 200) res.status(route.status);
         res.json(result);

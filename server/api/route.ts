@@ -2,6 +2,8 @@ import type { Request, Response } from "express";
 import { z } from "zod";
 import type { Db } from "../../db/connection.ts";
 import type { JobRunner } from "../jobs/jobRunner.ts";
+import type { ServerLimits } from "../serverLimits.ts";
+import type { UploadReader } from "../services/uploadReader.ts";
 import type { DataSets } from "../services/datasets/dataSets.ts";
 
 /** What every handler receives: validated request parts and the app's services. */
@@ -14,6 +16,10 @@ export interface RouteContext<Q, B, P> {
   /** The data sets the server can switch between; null when it was started on one database only. */
   datasets: DataSets | null;
   jobs: JobRunner;
+  /** Limits on requests and analyses (server/serverLimits.ts). */
+  limits: ServerLimits;
+  /** Reads uploaded files in a worker thread with time and memory caps. */
+  uploads: UploadReader;
   req: Request;
   res: Response;
 }

@@ -23,6 +23,13 @@ export interface Command {
   run(values: Record<string, string | boolean | string[] | undefined>, positionals: string[], io: CommandIo): Promise<number>;
 }
 
+/** A command as the registry lists it: enough for the command list, the rest loaded on use. */
+export interface CommandEntry {
+  name: string;
+  summary: string;
+  load(): Promise<Command>;
+}
+
 /** Options every sub-command takes. */
 export const COMMON_OPTIONS: OptionSpec = {
   db: { type: "string" },

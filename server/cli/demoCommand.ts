@@ -1,5 +1,5 @@
 import { defaultDemoDatabasePath } from "../../db/connection.ts";
-import { loadDemoData } from "../services/demoData.ts";
+import { loadDemoData, loadDynamicsDemo } from "../services/demoData.ts";
 import { COMMON_HELP, COMMON_OPTIONS, type Command } from "./command.ts";
 import { openCliDatabase } from "./openCliDatabase.ts";
 
@@ -9,7 +9,9 @@ export const demoCommand: Command = {
   help: `Usage: morphogauge demo [--db PATH] [options]
 
 Imports the demo data (fixtures/): glimmerin profiles of a fictional lab,
-three genotypes plus a dosage series, invented for trying the tool out.
+three genotypes plus a dosage series, and a build-up time course of a live
+reporter (channel glm-gfp; FRAP curves of it are in fixtures/glimmerin_frap_cell*.csv),
+invented for trying the tool out.
 The demo lives in a database of its own: $MORPHOGAUGE_DEMO_DB, else
 ./morphogauge-demo.db (or the file named by --db, which must not hold your
 own imports), so its embryos never join your groups. Running it twice adds
@@ -21,7 +23,7 @@ ${COMMON_HELP.replace("database file (default: $MORPHOGAUGE_DB or ./morphogauge.
   async run(values, _positionals, io) {
     const { db, path } = await openCliDatabase((values.db as string | undefined) ?? defaultDemoDatabasePath(io.env), io);
     try {
-      const reports = loadDemoData(db);
+      const reports = [...loadDemoData(db), ...loadDynamicsDemo(db)];
       if (values.json) io.stdout(JSON.stringify({ database: path, files: reports }, null, 2) + "\n");
       else {
         for (const r of reports) io.stdout(`${r.status === "rejected" ? "✗" : "✓"} ${r.file}: ${r.status === "rejected" ? r.error.message : r.message}\n`);

@@ -2,7 +2,8 @@ import { runFitTask } from "../services/fits/fitTask.ts";
 import { FitRequest } from "../services/fits/fitRequest.ts";
 import { prepareFitInput, storeFitOutput } from "../services/fits/fitService.ts";
 import { UserError } from "../userError.ts";
-import { numberOption, rangeOption, valueWithErrorOption } from "./cliNumbers.ts";
+import { numberOption, valueWithErrorOption } from "./cliNumbers.ts";
+import { windowOption } from "./windowOption.ts";
 import { COMMON_HELP, COMMON_OPTIONS, type Command } from "./command.ts";
 import { formatEstimate } from "./formatEstimate.ts";
 import { formatTable } from "./formatTable.ts";
@@ -27,11 +28,17 @@ background and fixed parameters); group analyses use one setting for all groups
   --embryo E            only this embryo
   --model M             exponential | finite | source | power | power-free | all
                         (default exponential; several comma-separated; "all" ranks them by AICc)
-  --window A:B          fit only positions A ≤ x ≤ B µm (A: or :B leave one end open),
-                        e.g. 30: to leave out a source region
+  --window A:B          fit only positions A ≤ x ≤ B, each end in µm (30) or as a
+                        fraction of the embryo's length (0.1L); A: or :B leave one end
+                        open, e.g. 30: or 0.1L:0.8L. Without a start, the fit starts
+                        past a source plateau or dip when one is detected (and says so)
+  --no-auto-window      fit from the first point even when a source plateau is detected
   --no-background       fit without an additive background
   --source-width UM     hold the source width of the "source" model at this value
-  --weights W           none | poisson (default none)
+  --weights W           intensity | none | poisson (default intensity: 1/(a + b·μ²),
+                        estimated from the residuals, for noise that grows with intensity)
+  --error-model E       hc3 | classic (default hc3: sandwich standard errors that hold
+                        when the noise varies; classic: s²(JᵀJ)⁻¹, constant noise)
   --robust L            none | soft-l1 | huber (default none): down-weight outlying points
   --as NAME             name the fit setting of these fits, e.g. posterior-window (NAME-model with
                         several models); default: the setting's stored name, or one made from
@@ -51,6 +58,8 @@ ${COMMON_HELP}`,
     embryo: { type: "string" },
     model: { type: "string" },
     window: { type: "string" },
+    "no-auto-window": { type: "boolean", default: false },
+    "error-model": { type: "string" },
     "no-background": { type: "boolean", default: false },
     "source-width": { type: "string" },
     weights: { type: "string" },
@@ -61,7 +70,7 @@ ${COMMON_HELP}`,
     "tau-at": { type: "string" },
   },
   async run(values, _positionals, io) {
-    const window = rangeOption("window", values.window as string | undefined);
+    const window = windowOption("window", values.window as string | undefined);
     const sourceWidth = numberOption("source-width", values["source-width"] as string | undefined);
     const diffusion = valueWithErrorOption("diffusion", values.diffusion as string | undefined);
     const tauAt = ((values["tau-at"] as string | undefined) ?? "")
@@ -73,7 +82,9 @@ ${COMMON_HELP}`,
       selection: { ...genotypeSelection(values.genotype as string | undefined), channel: values.channel, embryo: values.embryo },
       models: ((values.model as string | undefined) ?? "exponential").split(",").map((m) => m.trim()),
       options: {
-        ...(window ? { window: { xMinUm: window.min, xMaxUm: window.max } } : {}),
+        ...(window ? { window } : {}),
+        ...(values["no-auto-window"] ? { autoWindow: false } : {}),
+        ...(values["error-model"] ? { errorModel: values["error-model"] } : {}),
         ...(values["no-background"] ? { background: false } : {}),
         ...(sourceWidth !== undefined ? { fixed: { sourceWidthUm: sourceWidth } } : {}),
         ...(values.weights ? { weights: values.weights } : {}),
@@ -98,23 +109,39 @@ ${COMMON_HELP}`,
       }
       io.stdout(
         formatTable(
-          ["embryo", "genotype", "channel", "model", "λ (µm) ± SE [95% CI]", "AICc weight", "status"],
+          ["embryo", "genotype", "channel", "model", "λ (µm) ± SE [95% CI]", "window (µm)", "AICc weight", "status"],
           result.fits.map((f) => [
             f.embryo,
             f.genotype,
             f.channel,
             f.model,
             f.lambda_um ? formatEstimate(f.lambda_um) : f.parameters.x0Um ? `x0 ${formatEstimate(f.parameters.x0Um)}` : "—",
+            f.window ? `${formatUm(f.window.from_um)}–${formatUm(f.window.to_um)}${f.window.start.startsWith("past-source") ? " *" : ""}` : "—",
             f.akaike_weight === null ? "" : f.akaike_weight.toFixed(2),
             f.status === "converged" ? "ok" : `${f.status}: ${f.message}`,
           ]),
         ),
       );
+      if (result.fits.some((f) => f.window?.start.startsWith("past-source")))
+        io.stdout("* the fit starts past a detected source plateau or dip; give --window 0: (or --no-auto-window) to fit from the first point\n");
+      const errorModels = [...new Set(result.fits.map((f) => f.error_model.description))];
+      io.stdout(`Error model: ${errorModels.join(" | ")}\n`);
+      const warned = result.fits.filter((f) => f.warnings.length > 0);
+      if (warned.length > 0) {
+        io.stdout(`\nWarnings (${warned.length} fit(s)):\n`);
+        for (const f of warned) for (const w of f.warnings) io.stdout(`  ${f.embryo} (${f.model}): ${w}\n`);
+      }
+      for (const g of result.groups) {
+        const p = g.model_preference;
+        io.stdout(`\n${g.genotype} / ${g.channel}: ${g.warning ? `WARNING: ${g.warning}` : p.message}`);
+      }
+      if (result.groups.length > 0) io.stdout("\n");
       for (const g of result.global) {
         const pe = g.per_embryo;
         io.stdout(
           `\nglobal ${g.model} fit, ${g.genotype} / ${g.channel} (${g.n_embryos} embryos): λ = ${formatEstimate(g.lambda_um, "µm")}` +
             (pe.mean_um !== null ? `; per-embryo λ mean ${pe.mean_um.toFixed(1)} µm, SD ${pe.sd_um?.toFixed(1) ?? "—"} µm, median ${pe.median_um?.toFixed(1)} µm` : "") +
+            (g.window ? `\n  window ${g.window.how_chosen}` : "") +
             "\n",
         );
       }
@@ -127,3 +154,7 @@ ${COMMON_HELP}`,
     }
   },
 };
+
+function formatUm(v: number): string {
+  return Number.isInteger(v) ? String(v) : v.toFixed(1);
+}

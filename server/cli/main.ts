@@ -1,6 +1,9 @@
+import { resolve } from "node:path";
 import { parseArgs } from "node:util";
+import { databaseUserError } from "../../db/databaseError.ts";
+import { defaultDatabasePath } from "../../db/connection.ts";
 import { isUserError } from "../userError.ts";
-import type { Command, CommandIo } from "./command.ts";
+import type { CommandEntry, CommandIo } from "./command.ts";
 import { COMMANDS } from "./commands.ts";
 import { TOOL_VERSION } from "../version.ts";
 
@@ -26,11 +29,12 @@ export async function runCli(argv: string[], io: CommandIo): Promise<number> {
     io.stdout(`${TOOL_VERSION}\n`);
     return 0;
   }
-  const command: Command | undefined = COMMANDS.find((c) => c.name === name);
-  if (!command) {
+  const entry: CommandEntry | undefined = COMMANDS.find((c) => c.name === name);
+  if (!entry) {
     io.stderr(`morphogauge: unknown command "${name}"\n\n${USAGE()}`);
     return 2;
   }
+  const command = await entry.load();
   let parsed;
   try {
     parsed = parseArgs({ args: rest, options: command.options, allowPositionals: command.allowPositionals ?? false, strict: true });
@@ -44,7 +48,9 @@ export async function runCli(argv: string[], io: CommandIo): Promise<number> {
   }
   try {
     return await command.run(parsed.values as Record<string, string | boolean | string[] | undefined>, parsed.positionals, io);
-  } catch (e) {
+  } catch (caught) {
+    // A read-only, full, locked or damaged database is the environment, not a bug: say which file and what to do.
+    const e = isUserError(caught) ? caught : (databaseUserError(caught, resolve(io.cwd, (parsed.values.db as string | undefined) ?? defaultDatabasePath(io.env))) ?? caught);
     if (isUserError(e)) {
       if (parsed.values.json) io.stdout(JSON.stringify({ error: { code: e.code, message: e.message, issues: e.issues } }, null, 2) + "\n");
       io.stderr(`morphogauge ${name}: ${e.message}\n`);

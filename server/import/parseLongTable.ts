@@ -1,8 +1,8 @@
 import type { ColumnHeader } from "./columnRoles.ts";
-import type { DelimitedTable } from "./delimitedTable.ts";
+import type { TableStream } from "./delimitedTable.ts";
 import { EmbryoAttributeReader } from "./embryoAttributes.ts";
 import type { IssueCollector } from "./importError.ts";
-import { readNumericCell } from "./numericCell.ts";
+import { cellNumber, readNumericCell } from "./numericCell.ts";
 import type { RawEmbryoAttributes, RawProfile } from "./rawTables.ts";
 import type { DroppedCell } from "./records.ts";
 import { KNOWN_TIME_UNITS, timeUnitSeconds } from "./units.ts";
@@ -15,10 +15,11 @@ export interface LongTableResult {
 
 /**
  * A long (tidy) table: one row per point, with columns for embryo, position and
- * intensity, and optionally channel, time and per-embryo attributes.
+ * intensity, and optionally channel, time and per-embryo attributes. Reads
+ * the rows as they stream by; what it keeps is the numbers of each profile.
  */
 export function parseLongTable(
-  table: DelimitedTable,
+  table: TableStream,
   columns: ColumnHeader[],
   ctx: { file: string; decimalMark: "." | ","; labelPrefix: string; issues: IssueCollector; warnings: WarningCollector; dropped: DroppedCell[] },
 ): LongTableResult {
@@ -45,42 +46,49 @@ export function parseLongTable(
   const attributes = new EmbryoAttributeReader(file, attributeColumns, decimalMark, issues, ctx.warnings);
   const profiles = new Map<string, RawProfile>();
 
-  for (const row of table.rows) {
-    const label = row.cells[embryoCol.index].trim();
+  // Rows of one profile usually follow each other: reuse the last profile while its key holds.
+  let last: RawProfile | null = null;
+  table.forEachRow((row) => {
+    const cells = row.cells;
+    const label = cells[embryoCol.index].trim();
     if (label === "") {
       issues.add({ file, row: row.line, column: embryoCol.header }, "the embryo label is empty");
-      continue;
+      return;
     }
     const embryo = ctx.labelPrefix + label;
-    attributes.read(embryo, row.line, row.cells);
-    const channel = channelCol ? row.cells[channelCol.index].trim() || null : null;
+    attributes.read(embryo, row.line, cells);
+    const channel = channelCol ? cells[channelCol.index].trim() || null : null;
     let timeS: number | null = null;
     if (timeCol) {
-      const t = readNumericCell(row.cells[timeCol.index], decimalMark);
-      if (t.kind === "invalid") issues.add({ file, row: row.line, column: timeCol.header, value: row.cells[timeCol.index] }, `"${row.cells[timeCol.index]}" is not a number`);
+      const t = readNumericCell(cells[timeCol.index], decimalMark);
+      if (t.kind === "invalid") issues.add({ file, row: row.line, column: timeCol.header, value: cells[timeCol.index] }, `"${cells[timeCol.index]}" is not a number`);
       else if (t.kind === "number") timeS = t.value * timeFactor;
     }
-    const key = JSON.stringify([embryo, channel, timeS]);
-    let profile = profiles.get(key);
-    if (!profile) {
-      profile = { embryo, channel, timeS, positions: [], intensities: [], rows: [], dropped: 0 };
-      profiles.set(key, profile);
+    let profile = last;
+    if (profile === null || profile.embryo !== embryo || profile.channel !== channel || profile.timeS !== timeS) {
+      const key = JSON.stringify([embryo, channel, timeS]);
+      profile = profiles.get(key) ?? null;
+      if (!profile) {
+        profile = { embryo, channel, timeS, positions: [], intensities: [], rows: [], dropped: 0 };
+        profiles.set(key, profile);
+      }
+      last = profile;
     }
-    const x = readNumericCell(row.cells[posCol.index], decimalMark);
-    const y = readNumericCell(row.cells[intCol.index], decimalMark);
-    if (x.kind === "invalid") issues.add({ file, row: row.line, column: posCol.header, value: row.cells[posCol.index] }, `"${row.cells[posCol.index]}" is not a number`);
-    if (y.kind === "invalid") issues.add({ file, row: row.line, column: intCol.header, value: row.cells[intCol.index] }, `"${row.cells[intCol.index]}" is not a number`);
-    if (x.kind === "missing" || y.kind === "missing") {
+    const x = cellNumber(cells[posCol.index], decimalMark);
+    const y = cellNumber(cells[intCol.index], decimalMark);
+    if (x === "invalid") issues.add({ file, row: row.line, column: posCol.header, value: cells[posCol.index] }, `"${cells[posCol.index]}" is not a number`);
+    if (y === "invalid") issues.add({ file, row: row.line, column: intCol.header, value: cells[intCol.index] }, `"${cells[intCol.index]}" is not a number`);
+    if (x === "missing" || y === "missing") {
       profile.dropped++;
-      const which = x.kind === "missing" ? posCol : intCol;
-      ctx.dropped.push({ row: row.line, column: which.header, value: row.cells[which.index] });
-      continue;
+      const which = x === "missing" ? posCol : intCol;
+      ctx.dropped.push({ row: row.line, column: which.header, value: cells[which.index] });
+      return;
     }
-    if (x.kind === "number" && y.kind === "number") {
-      profile.positions.push(x.value);
-      profile.intensities.push(y.value);
+    if (typeof x === "number" && typeof y === "number") {
+      profile.positions.push(x);
+      profile.intensities.push(y);
       profile.rows.push(row.line);
     }
-  }
+  });
   return { profiles: [...profiles.values()], attributes: attributes.finish(ctx.warnings) };
 }

@@ -1,7 +1,7 @@
 import { createHash } from "node:crypto";
 import { classifyHeaders, type ColumnHeader } from "./columnRoles.ts";
-import { decodeText } from "./decodeText.ts";
-import { readDelimitedTable } from "./delimitedTable.ts";
+import { decodeChunks, decodeText } from "./decodeText.ts";
+import { collectRows, openDelimitedTable, type TableStream } from "./delimitedTable.ts";
 import { ImportError, IssueCollector } from "./importError.ts";
 import type { ResolvedImportOptions } from "./importOptions.ts";
 import { looksLikeDecimalComma } from "./numericCell.ts";
@@ -38,11 +38,15 @@ export function parseProfileFile(data: SourceFile, options: ResolvedImportOption
   const warnings = new WarningCollector();
   const dropped: DroppedCell[] = [];
 
-  const table = readDelimitedTable(decodeText(data.bytes, file), file, options.delimiter);
+  // One pass over the text: rows stream from the tokenizer into the table
+  // reader, and only each profile's numbers are kept. A semicolon or tab file
+  // with an automatic decimal mark is first scanned for decimal commas.
+  const pieces = decodeChunks(data.bytes, file);
+  const table = openDelimitedTable(pieces, file, options.delimiter);
   const decimalMark =
     options.decimalMark !== "auto"
       ? options.decimalMark
-      : table.delimiter !== "," && looksLikeDecimalComma(table.rows.flatMap((r) => r.cells))
+      : table.delimiter !== "," && hasDecimalComma(openDelimitedTable(pieces, file, table.delimiter))
         ? ","
         : ".";
   if (decimalMark === "," && table.delimiter === ",") {
@@ -55,7 +59,7 @@ export function parseProfileFile(data: SourceFile, options: ResolvedImportOption
   const parsed =
     format === "long"
       ? parseLongTable(table, columns, { file, decimalMark, labelPrefix: options.labelPrefix, issues, warnings, dropped })
-      : parseWideTable(table, columns, { file, decimalMark, labelPrefix: options.labelPrefix, issues, dropped });
+      : parseWideTable(collectRows(table), columns, { file, decimalMark, labelPrefix: options.labelPrefix, issues, dropped });
   issues.throwIfAny();
 
   const metaAttributes = meta
@@ -103,6 +107,10 @@ export function parseProfileFile(data: SourceFile, options: ResolvedImportOption
     }
     warnAboutProfile(raw, warnings, options.flip === "auto");
     profiles.push(toRecord(raw, channel, unit, pixelSizeUm, lengthUm, options.flip === "auto" && risesAwayFromSource(raw.intensities)));
+    // The record holds the numbers now; let the parsed lists go, so a large file is not held twice.
+    raw.positions = [];
+    raw.intensities = [];
+    raw.rows = [];
   }
   for (const e of embryos) {
     if (e.lengthFromPixels !== null) {
@@ -142,6 +150,16 @@ export function parseProfileFile(data: SourceFile, options: ResolvedImportOption
       unit: c.unitText,
     })),
   };
+}
+
+/** True when some data cell reads as a decimal-comma number ("12,5"); stops at the first. */
+function hasDecimalComma(table: TableStream): boolean {
+  let found = false;
+  table.forEachRow((row) => {
+    found = looksLikeDecimalComma(row.cells);
+    return !found;
+  });
+  return found;
 }
 
 function chooseFormat(columns: ColumnHeader[], option: "auto" | TableFormat, file: string, headerLine: number): TableFormat {
@@ -247,10 +265,11 @@ function toRecord(
   flip: boolean,
 ): ProfileRecord {
   const n = raw.positions.length;
-  const scaled = Float64Array.from(raw.positions, (x) => x * unit.factor);
-  const toUm = (x: number) => (unit.unit === "um" ? x : unit.unit === "px" ? x * pixelSizeUm! : x * lengthUm!);
+  const scaled = new Float64Array(n);
+  for (let i = 0; i < n; i++) scaled[i] = raw.positions[i] * unit.factor;
+  const umPerUnit = unit.unit === "um" ? 1 : unit.unit === "px" ? pixelSizeUm! : lengthUm!;
   let positionsRaw = scaled;
-  let intensities = Float64Array.from(raw.intensities);
+  let intensities = new Float64Array(raw.intensities);
   if (flip) {
     // Mirror about the embryo's far end when its length is known, else about the profile's own span.
     const lengthInUnit =
@@ -266,7 +285,7 @@ function toRecord(
     positionUnit: unit.unit,
     pixelSizeUm: unit.unit === "px" ? pixelSizeUm : null,
     positionsRaw,
-    positionsUm: Float64Array.from(positionsRaw, toUm),
+    positionsUm: positionsRaw.map((x) => x * umPerUnit),
     intensities,
     droppedPoints: raw.dropped,
     flipped: flip,

@@ -4,6 +4,8 @@ import { runPrecisionTask, type PrecisionTaskInput } from "./precision/precision
 import { runCompareTask, type CompareTaskInput } from "./groups/compareTask.ts";
 import { runPlanTask, runTrackTask, type TrackTaskInput } from "./groups/trackTask.ts";
 import type { PlanOptionsInput } from "../analysis/compare/planning/planOptions.ts";
+import { runTimeCourseTask, type TimeCourseTaskInput } from "./dynamics/timeCourseService.ts";
+import { runFrapTask, type FrapTaskInput } from "./dynamics/frapService.ts";
 
 /**
  * Every computation a job may run in a worker thread, by name. Each is pure:
@@ -16,6 +18,8 @@ export const COMPUTE_TASKS: Record<string, ComputeTask> = {
   compare: (input, progress) => runCompareTask(input as CompareTaskInput, progress),
   track: (input, progress) => runTrackTask(input as TrackTaskInput, progress),
   plan: (input, progress) => runPlanTask(input as PlanOptionsInput, progress),
+  dynamics: (input) => runTimeCourseTask(input as TimeCourseTaskInput),
+  frap: (input) => runFrapTask(input as FrapTaskInput),
   /** A small self-check used by the job runner's tests: counts to n, reporting progress. */
   "self-test": async (input, progress) => {
     const { n, delayMs, fail } = input as { n: number; delayMs: number; fail?: "user" | "internal" };

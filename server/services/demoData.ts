@@ -4,6 +4,7 @@ import type { Db } from "../../db/connection.ts";
 import { countImports, getDatasetKind, setDatasetKind } from "../../db/datasetKind.ts";
 import { countProfiles } from "../../db/profiles.ts";
 import { DEMO_FILES } from "../../fixtures/demoFiles.ts";
+import { DYNAMICS_FILES } from "../../fixtures/dynamicsDemo.ts";
 import { ImportOptions } from "../import/importOptions.ts";
 import { UserError } from "../userError.ts";
 import { importFiles, type ImportReport } from "./importFiles.ts";
@@ -32,4 +33,15 @@ export function loadDemoData(db: Db): ImportReport[] {
 /** True when the database holds no profiles yet. */
 export function isEmpty(db: Db): boolean {
   return countProfiles(db) === 0;
+}
+
+/** Load the invented build-up time course (live reporter channel "glm-gfp", wild type). */
+export function loadDynamicsDemo(db: Db): ImportReport[] {
+  const files = [{ name: DYNAMICS_FILES.buildUp, bytes: readFileSync(FIXTURES + DYNAMICS_FILES.buildUp) }];
+  return importFiles(db, files, ImportOptions.parse({}));
+}
+
+/** Paths of the invented FRAP curves (a spot of radius 3 µm), for the command line and the page. */
+export function demoFrapFiles(): { name: string; text: string }[] {
+  return DYNAMICS_FILES.frap.map((name) => ({ name, text: readFileSync(FIXTURES + name, "utf8") }));
 }

@@ -7,6 +7,7 @@ import { isUserError, type UserIssue } from "../userError.ts";
 import { parseForImport } from "./imports/parseForImport.ts";
 import { planImport } from "./imports/planImport.ts";
 import { resolveImport, type ConflictChoice } from "./imports/resolveImport.ts";
+import { boundedUserError, checkParsedImport } from "./uploadChecks.ts";
 
 export type ImportReport =
   | {
@@ -37,13 +38,24 @@ export function importSettings(options: ResolvedImportOptions, meta?: SourceFile
  * with the database; values that differ from stored embryos are handled as
  * `onConflict` says (refused by default), never overwritten silently.
  */
-export function importFiles(db: Db, files: SourceFile[], options: ResolvedImportOptions, meta?: SourceFile, onConflict: ConflictChoice = "refuse"): ImportReport[] {
-  return files.map((file) => importOne(db, file, options, meta, onConflict));
+export function importFiles(
+  db: Db,
+  files: SourceFile[],
+  options: ResolvedImportOptions,
+  meta?: SourceFile,
+  onConflict: ConflictChoice = "refuse",
+  parse: ParseFile = parseForImport,
+): ImportReport[] {
+  return files.map((file) => importOne(db, file, options, meta, onConflict, parse));
 }
 
-function importOne(db: Db, file: SourceFile, options: ResolvedImportOptions, meta: SourceFile | undefined, onConflict: ConflictChoice): ImportReport {
+/** How a file becomes records: the parser itself, or (in the server) the result of parsing it in a worker thread. */
+export type ParseFile = (file: SourceFile, options: ResolvedImportOptions, meta?: SourceFile) => ParsedImport;
+
+function importOne(db: Db, file: SourceFile, options: ResolvedImportOptions, meta: SourceFile | undefined, onConflict: ConflictChoice, parse: ParseFile): ImportReport {
   try {
-    const parsed = parseForImport(file, options, meta);
+    const parsed = parse(file, options, meta);
+    checkParsedImport(parsed);
     const settings = importSettings(options, meta);
     // Compare and store in one transaction, so the comparison still holds when the file is stored.
     return db.transaction((): ImportReport => {
@@ -69,8 +81,9 @@ function importOne(db: Db, file: SourceFile, options: ResolvedImportOptions, met
           resolved.notes.map((n) => `; ${n}`).join(""),
       };
     })();
-  } catch (e) {
-    if (!isUserError(e)) throw e;
+  } catch (caught) {
+    if (!isUserError(caught)) throw caught;
+    const e = boundedUserError(caught);
     return { file: file.name, status: "rejected", error: { code: e.code, message: e.message, issues: e.issues } };
   }
 }

@@ -38,7 +38,7 @@ describe("data sets: the demo apart from the lab's data", () => {
     const wtBefore = (await get("/api/profiles?genotype=wt")).total;
     expect(wtBefore).toBeGreaterThan(0);
     for (const path of ["/api/imports/preview", "/api/imports"]) {
-      const refused = await fetch(`${s.url}${path}`, { method: "POST", body: uploadForm({ "lab.csv": upload }) });
+      const refused = await fetch(`${s.url}${path}`, { method: "POST", headers: { "x-requested-with": "test" }, body: uploadForm({ "lab.csv": upload }) });
       expect(refused.status).toBe(409);
       const err = (await refused.json()).error;
       expect(err.code).toBe("demo-is-open");
@@ -47,7 +47,7 @@ describe("data sets: the demo apart from the lab's data", () => {
     const switched = await post("/api/datasets/switch", { id: "morphogauge.db" });
     expect(switched.status).toBe(200);
     expect((await switched.json()).current).toMatchObject({ id: "morphogauge.db", kind: "user", exists: true });
-    const imported = await (await fetch(`${s.url}/api/imports`, { method: "POST", body: uploadForm({ "lab.csv": upload }) })).json();
+    const imported = await (await fetch(`${s.url}/api/imports`, { method: "POST", headers: { "x-requested-with": "test" }, body: uploadForm({ "lab.csv": upload }) })).json();
     expect(imported.files[0]).toMatchObject({ status: "imported", embryosAdded: 3, embryosMatched: 0 });
     const mine = await get("/api/profiles");
     expect(mine.total).toBe(3);

@@ -43,8 +43,9 @@ describe("GET /api/exports/:table.csv", () => {
       expect(num(r.aicc)).toBe(stored[i].aicc);
       expect(r.status).toBe("converged");
     });
-    // Python recomputes the CI half-width from the SE: it is t(0.975, n − 3)·SE (Source: least-squares CI, science.md §7; scipy.stats.t as reference).
-    const ratios = await runPython<number[]>("from scipy import stats\nresult = [ (float(r['lambda_ci95_high_um']) - float(r['lambda_um'])) / (float(r['lambda_se_um']) * stats.t.ppf(0.975, int(r['n_points']) - 3)) for r in data ]", rows);
+    // Python recomputes the CI half-width from the SE on the log scale: ln(high/λ) = t(0.975, n − 3)·SE/λ
+    // (Source: least-squares CI, science.md §7, on the log scale for a positive parameter, science.md §8; scipy.stats.t as reference).
+    const ratios = await runPython<number[]>("from scipy import stats\nimport math\nresult = [ math.log(float(r['lambda_ci95_high_um']) / float(r['lambda_um'])) * float(r['lambda_um']) / (float(r['lambda_se_um']) * stats.t.ppf(0.975, int(r['n_points']) - 3)) for r in data ]", rows);
     for (const r of ratios) expect(r).toBeCloseTo(1, 8);
   });
 

@@ -7,16 +7,19 @@ import { renderChart } from "../../server/figures/renderChart.ts";
 import { comparisonResponse } from "../../server/services/groups/comparisonResponse.ts";
 import { pngSize } from "../helpers/pngSize.ts";
 import { seedAnalyses } from "../helpers/seedAnalyses.ts";
+import { seedDynamics } from "../helpers/seedDynamics.ts";
 import { startTestServer, type TestServer } from "../helpers/testServer.ts";
 
 // Figure endpoint over the demo data: every kind as PNG and SVG, file names, and the error paths (common practice, no source).
 describe("GET /api/figures/:kind", () => {
   let s: TestServer;
   let seeded: ReturnType<typeof seedAnalyses>;
+  let dynamics: ReturnType<typeof seedDynamics>;
   beforeAll(async () => {
     s = await startTestServer({ demo: true });
     seeded = seedAnalyses(s.db);
-  }, 180_000);
+    dynamics = seedDynamics(s.db);
+  }, 300_000);
   afterAll(async () => s.close());
 
   const get = (path: string) => fetch(`${s.url}${path}`);
@@ -26,6 +29,9 @@ describe("GET /api/figures/:kind", () => {
       "profile-fit": `fit=${fit}`, residuals: `fit=${fit}`, "group-values": `analysis=${seeded.comparison.analysis_id}`,
       ensemble: `analysis=${seeded.precisionGlm.analysis_id}`, "sigma-x": `analysis=${seeded.precisionGlm.analysis_id}`, boundary: `analysis=${seeded.precisionGlm.analysis_id}`,
       "decoding-map": `analysis=${seeded.precisionGlm.analysis_id}`, trend: `analysis=${seeded.tracking.analysis_id}`, power: `analysis=${seeded.plan.analysis_id}`,
+      "build-up": `analysis=${dynamics.timeCourse.analysis_id}`, "build-up-residuals": `analysis=${dynamics.timeCourse.analysis_id}`,
+      "profile-likelihood-k": `analysis=${dynamics.timeCourse.analysis_id}`, "accumulation-time": `analysis=${dynamics.timeCourse.analysis_id}`,
+      "frap-recovery": `analysis=${dynamics.frap.analysis_id}`, "frap-residuals": `analysis=${dynamics.frap.analysis_id}`, simulation: `analysis=${dynamics.simulation.analysis_id}`,
     };
     return ids[kind];
   };

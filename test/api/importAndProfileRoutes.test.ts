@@ -1,7 +1,7 @@
 import { readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { databaseSnapshot } from "../helpers/databaseSnapshot.ts";
-import { startTestServer, uploadForm, type TestServer } from "../helpers/testServer.ts";
+import { PAGE_WRITE_HEADERS, startTestServer, uploadForm, type TestServer } from "../helpers/testServer.ts";
 
 // API conventions of this project: zod-validated requests, {error:{code,message,issues}} bodies,
 // 4xx for user mistakes (common practice, no source).
@@ -21,7 +21,7 @@ describe("import and profile API", () => {
 
   it("POST /api/imports/preview parses without storing", async () => {
     const before = databaseSnapshot(s.db);
-    const r = await fetch(`${s.url}/api/imports/preview`, { method: "POST", body: uploadForm({ "good.csv": good, "bad.csv": bad }) });
+    const r = await fetch(`${s.url}/api/imports/preview`, { method: "POST", headers: PAGE_WRITE_HEADERS, body: uploadForm({ "good.csv": good, "bad.csv": bad }) });
     expect(r.status).toBe(200);
     const body = await r.json();
     expect(body.files[0]).toMatchObject({ file: "good.csv", status: "ok", format: "long", delimiter: "," });
@@ -33,40 +33,40 @@ describe("import and profile API", () => {
   });
 
   it("POST /api/imports stores good files, rejects bad ones whole, and is idempotent", async () => {
-    const r = await fetch(`${s.url}/api/imports`, { method: "POST", body: uploadForm({ "good.csv": good, "bad.csv": bad }, { channel: "glm" }) });
+    const r = await fetch(`${s.url}/api/imports`, { method: "POST", headers: PAGE_WRITE_HEADERS, body: uploadForm({ "good.csv": good, "bad.csv": bad }, { channel: "glm" }) });
     expect(r.status).toBe(200);
     const body = await r.json();
     expect(body.files.map((f: { status: string }) => f.status)).toEqual(["imported", "rejected"]);
-    const again = await (await fetch(`${s.url}/api/imports`, { method: "POST", body: uploadForm({ "good.csv": good }, { channel: "glm" }) })).json();
+    const again = await (await fetch(`${s.url}/api/imports`, { method: "POST", headers: PAGE_WRITE_HEADERS, body: uploadForm({ "good.csv": good }, { channel: "glm" }) })).json();
     expect(again.files[0].status).toBe("already-imported");
     expect(again.files[0].message).toContain("with the same options and side file");
-    const onlyBad = await fetch(`${s.url}/api/imports`, { method: "POST", body: uploadForm({ "bad.csv": bad }) });
+    const onlyBad = await fetch(`${s.url}/api/imports`, { method: "POST", headers: PAGE_WRITE_HEADERS, body: uploadForm({ "bad.csv": bad }) });
     expect(onlyBad.status).toBe(422);
   });
 
   it("POST /api/imports/preview compares with the database: a stored embryo with another length is a conflict until onConflict chooses", async () => {
     const longer = "embryo,genotype,length [µm],channel,position [µm],intensity\n" + [0, 1, 2, 3, 4, 5].map((i) => `A1,wt,480,second,${i * 10},${60 - i * 5}`).join("\n") + "\n";
-    await fetch(`${s.url}/api/imports`, { method: "POST", body: uploadForm({ "len.csv": longer.replaceAll("480", "520").replaceAll("second", "first") }) });
+    await fetch(`${s.url}/api/imports`, { method: "POST", headers: PAGE_WRITE_HEADERS, body: uploadForm({ "len.csv": longer.replaceAll("480", "520").replaceAll("second", "first") }) });
     const before = databaseSnapshot(s.db);
-    const refuse = (await (await fetch(`${s.url}/api/imports/preview`, { method: "POST", body: uploadForm({ "longer.csv": longer }) })).json()).files[0];
+    const refuse = (await (await fetch(`${s.url}/api/imports/preview`, { method: "POST", headers: PAGE_WRITE_HEADERS, body: uploadForm({ "longer.csv": longer }) })).json()).files[0];
     expect(refuse.status).toBe("conflicts");
     expect(refuse.database.stored[0]).toMatchObject({ label: "A1", newProfiles: ["second"], conflicts: [{ name: "length (µm)", stored: 520, file: 480 }] });
-    const replace = (await (await fetch(`${s.url}/api/imports/preview`, { method: "POST", body: uploadForm({ "longer.csv": longer }, { onConflict: "replace" }) })).json()).files[0];
+    const replace = (await (await fetch(`${s.url}/api/imports/preview`, { method: "POST", headers: PAGE_WRITE_HEADERS, body: uploadForm({ "longer.csv": longer }, { onConflict: "replace" }) })).json()).files[0];
     expect(replace.status).toBe("ok");
     expect(replace.outcome.message).toContain("replaced the length (µm) of 1 embryo");
-    const stored = await fetch(`${s.url}/api/imports`, { method: "POST", body: uploadForm({ "longer.csv": longer }) });
+    const stored = await fetch(`${s.url}/api/imports`, { method: "POST", headers: PAGE_WRITE_HEADERS, body: uploadForm({ "longer.csv": longer }) });
     expect(stored.status).toBe(422);
     expect((await stored.json()).files[0].error.code).toBe("import-conflicts");
     expect(databaseSnapshot(s.db)).toEqual(before);
-    const bad = await fetch(`${s.url}/api/imports/preview`, { method: "POST", body: uploadForm({ "longer.csv": longer }, { onConflict: "overwrite" }) });
+    const bad = await fetch(`${s.url}/api/imports/preview`, { method: "POST", headers: PAGE_WRITE_HEADERS, body: uploadForm({ "longer.csv": longer }, { onConflict: "overwrite" }) });
     expect(bad.status).toBe(400);
     const imports = (await (await fetch(`${s.url}/api/imports`)).json()).imports;
-    expect((await fetch(`${s.url}/api/imports/${imports.at(-1).id}`, { method: "DELETE" })).status).toBe(200);
+    expect((await fetch(`${s.url}/api/imports/${imports.at(-1).id}`, { method: "DELETE", headers: PAGE_WRITE_HEADERS })).status).toBe(200);
   });
 
   it("POST /api/imports joins a metadata side file and honours form options", async () => {
     const wide = "x (px),W1,W2\n" + [0, 1, 2, 3, 4].map((i) => `${i * 10},${50 - i},${60 - i}`).join("\n");
-    const r = await (await fetch(`${s.url}/api/imports`, { method: "POST", body: uploadForm({ "w.csv": wide }, { pixelSizeUm: "0.5" }, ["m.csv", "embryo,genotype,length [µm]\nW1,mut,400\nW2,mut,410\n"]) })).json();
+    const r = await (await fetch(`${s.url}/api/imports`, { method: "POST", headers: PAGE_WRITE_HEADERS, body: uploadForm({ "w.csv": wide }, { pixelSizeUm: "0.5" }, ["m.csv", "embryo,genotype,length [µm]\nW1,mut,400\nW2,mut,410\n"]) })).json();
     expect(r.files[0]).toMatchObject({ status: "imported", profilesAdded: 2 });
     const list = await (await fetch(`${s.url}/api/profiles?genotype=mut`)).json();
     expect(list.total).toBe(2);
@@ -74,10 +74,10 @@ describe("import and profile API", () => {
   });
 
   it("POST /api/imports refuses a request without files, with a bad option, or not multipart", async () => {
-    const none = await fetch(`${s.url}/api/imports`, { method: "POST", body: uploadForm({}, { channel: "x" }) });
+    const none = await fetch(`${s.url}/api/imports`, { method: "POST", headers: PAGE_WRITE_HEADERS, body: uploadForm({}, { channel: "x" }) });
     expect(none.status).toBe(400);
     expect((await none.json()).error.message).toContain("No file was uploaded");
-    const badOpt = await fetch(`${s.url}/api/imports`, { method: "POST", body: uploadForm({ "g.csv": good }, { flip: "sideways" }) });
+    const badOpt = await fetch(`${s.url}/api/imports`, { method: "POST", headers: PAGE_WRITE_HEADERS, body: uploadForm({ "g.csv": good }, { flip: "sideways" }) });
     expect(badOpt.status).toBe(400);
     const err = (await badOpt.json()).error;
     expect(err.code).toBe("invalid-request");
@@ -103,11 +103,11 @@ describe("import and profile API", () => {
   it("DELETE /api/imports/:id removes only that import; unknown ids are 404", async () => {
     const imports = (await (await fetch(`${s.url}/api/imports`)).json()).imports;
     const last = imports.at(-1);
-    const r = await (await fetch(`${s.url}/api/imports/${last.id}`, { method: "DELETE" })).json();
+    const r = await (await fetch(`${s.url}/api/imports/${last.id}`, { method: "DELETE", headers: PAGE_WRITE_HEADERS })).json();
     expect(r.deleted).toEqual({ profiles: 2, embryos: 2, valuesRestored: 0 });
     expect((await (await fetch(`${s.url}/api/profiles`)).json()).total).toBe(1);
-    expect((await fetch(`${s.url}/api/imports/${last.id}`, { method: "DELETE" })).status).toBe(404);
-    expect((await fetch(`${s.url}/api/imports/abc`, { method: "DELETE" })).status).toBe(400);
+    expect((await fetch(`${s.url}/api/imports/${last.id}`, { method: "DELETE", headers: PAGE_WRITE_HEADERS })).status).toBe(404);
+    expect((await fetch(`${s.url}/api/imports/abc`, { method: "DELETE", headers: PAGE_WRITE_HEADERS })).status).toBe(400);
   });
 
   it("unknown API routes are 404 with a JSON error; bad JSON bodies are 400", async () => {
@@ -130,7 +130,7 @@ describe("import and profile API", () => {
 
   it("a demo fixture uploads through the API like any other file", async () => {
     const text = readFileSync(new URL("../../fixtures/glimmerin_dosage_series.csv", import.meta.url), "utf8");
-    const r = await (await fetch(`${s.url}/api/imports`, { method: "POST", body: uploadForm({ "glimmerin_dosage_series.csv": text }) })).json();
+    const r = await (await fetch(`${s.url}/api/imports`, { method: "POST", headers: PAGE_WRITE_HEADERS, body: uploadForm({ "glimmerin_dosage_series.csv": text }) })).json();
     expect(r.files[0]).toMatchObject({ status: "imported", profilesAdded: 40 });
   });
 });

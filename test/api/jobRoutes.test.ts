@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { startTestServer, type TestServer } from "../helpers/testServer.ts";
+import { PAGE_WRITE_HEADERS, startTestServer, type TestServer } from "../helpers/testServer.ts";
 
 // Background jobs: progress, streaming, cancellation, and answering other requests meanwhile (common practice, no source).
 describe("job API", () => {
@@ -29,7 +29,7 @@ describe("job API", () => {
     const t0 = performance.now();
     expect((await fetch(`${s.url}/api/health`)).status).toBe(200);
     expect(performance.now() - t0).toBeLessThan(1000);
-    const cancelled = await (await fetch(`${s.url}/api/jobs/${job.id}`, { method: "DELETE" })).json();
+    const cancelled = await (await fetch(`${s.url}/api/jobs/${job.id}`, { method: "DELETE", headers: PAGE_WRITE_HEADERS })).json();
     expect(cancelled.status).toBe("cancelled");
     expect((await (await fetch(`${s.url}/api/jobs/${job.id}`)).json()).status).toBe("cancelled");
   });

@@ -36,7 +36,7 @@ describe("Data view in chromium", () => {
       const form = new FormData();
       form.append("files", new Blob([readFileSync(WIDE)]), "glimmerin_wide.csv");
       form.append("meta", new Blob([readFileSync(META)]), "glimmerin_wide_meta.csv");
-      return (await (await fetch(`${s.server.url}/api/imports/preview`, { method: "POST", body: form })).json()) as { files: { embryos: unknown[]; warnings: { message: string }[]; columns: unknown[] }[] };
+      return (await (await fetch(`${s.server.url}/api/imports/preview`, { method: "POST", headers: { "x-requested-with": "morphogauge" }, body: form })).json()) as { files: { embryos: unknown[]; warnings: { message: string }[]; columns: unknown[] }[] };
     })();
     expect(facts).toMatch(new RegExp(`Embryos\\s+${preview.files[0].embryos.length}\\b`));
     expect(await card.locator(".notice-warning").count()).toBe(preview.files[0].warnings.length);

@@ -36,6 +36,8 @@ describe("Fits view in chromium", () => {
     await page.click("[data-role=start-fit]");
     await page.waitForSelector(".job-progress progress");
     await page.waitForSelector("[data-role=fit-done]", { timeout: 30_000 });
+    // The demo comes from a localized source, so AICc prefers the source model over both fitted ones (fixtures/demoScenario.ts).
+    expect(await page.locator(".fit-form .notice").allInnerTexts()).toEqual(expect.arrayContaining([expect.stringMatching(/wt \/ glm: AICc prefers the source model, not the fitted exponential/)]));
     const { fits } = await s.api<{ fits: FitItem[] }>("/api/fits?genotype=wt&channel=glm");
     expect(fits).toHaveLength(60);
     await page.waitForFunction((n) => document.querySelectorAll("[data-role=fit-table] tr[data-fit-id]").length === n, fits.length);
@@ -91,6 +93,8 @@ describe("Fits view in chromium", () => {
       expect(ink.colours).toBeGreaterThan(3);
       expect(ink.seriesPixels).toBeGreaterThan(200);
     }
+    expect(await page.locator(".fit-detail [data-role=fit-window]").innerText()).toMatch(/^Window: (whole profile, )?[\d.]+–[\d.]+ µm/);
+    expect(await page.locator(".fit-detail [data-role=fit-error-model]").innerText()).toContain("Error model: HC3 sandwich covariance");
     const lambda = await page.locator('.fit-detail tr[data-parameter="lambdaUm"] td').nth(2).innerText();
     const [value] = readNumbers(lambda);
     expect(Math.abs(value.value - target.lambdaUm!.value)).toBeLessThanOrEqual(value.halfUnit + 1e-9);

@@ -87,7 +87,8 @@ describe("Precision view in chromium", () => {
 
   it("Cancel stops a running analysis, and the page says so in plain words", async () => {
     const { page } = s;
-    await page.fill("input[name=bootstrap]", "100000");
+    // Long enough to cancel, within the compute budget (README, "Safety").
+    await page.fill("input[name=bootstrap]", "20000");
     await watchProgress(s);
     await page.click("[data-role=start-precision]");
     await page.waitForSelector('.job-progress[data-status="running"]');

@@ -40,6 +40,45 @@ describe("analysis commands on the demo database", () => {
     expect(out.caveat).toContain("λ = √(D/k)");
   });
 
+  it("fit --json states each fit's window and error model, and per group the model AICc prefers, warning when it is not the fitted one", async () => {
+    // Source: the demo profiles come from a localized source (fixtures/demoScenario.ts), so AICc should prefer
+    // the source model over the exponential for most embryos; window and error-model names are the stable JSON contract.
+    const out = await json("fit", "--genotype", "wt", "--channel", "glm");
+    for (const f of out.fits) {
+      expect(f.window).toMatchObject({ unit: "µm" });
+      expect(f.window.from_um).toBeLessThan(f.window.to_um);
+      expect(["data", "past-source-plateau", "past-source-dip"]).toContain(f.window.start);
+      expect(f.error_model).toMatchObject({ covariance: "hc3", weights: "intensity" });
+      expect(f.residual_check.verdict.length).toBeGreaterThan(0);
+    }
+    expect(out.groups).toHaveLength(1);
+    const preference = out.groups[0].model_preference;
+    expect(preference).toMatchObject({ model: "source", fitted_model: "exponential", agrees: false });
+    expect(preference.summed_weight).toBeGreaterThan(15);
+    expect(preference.profiles_compared).toBe(30);
+    expect(out.groups[0].warning).toMatch(/AICc prefers the source model/);
+    const text = (await cli("fit", "--genotype", "wt", "--channel", "glm")).stdout;
+    expect(text).toContain("window (µm)");
+    expect(text).toContain("Error model: HC3 sandwich");
+    expect(text).toMatch(/WARNING: AICc prefers the source model/);
+  });
+
+  it("fit --window 0.1L:0.8L fits each embryo over its own 10–80% of length, and --error-model classic is stated", async () => {
+    // common practice, no source: the window ends are fractions of each embryo's length L.
+    const out = await json("fit", "--embryo", "wt-01", "--channel", "glm", "--window", "0.1L:0.8L", "--error-model", "classic");
+    const f = out.fits[0];
+    const listed = JSON.parse((await cli("list", "--json", "--genotype", "wt")).stdout).profiles.find((p: { embryo: string }) => p.embryo === "wt-01");
+    const lengthUm = listed.length_um as number;
+    expect(f.window).toMatchObject({ start: "given-fraction-of-length", end: "given-fraction-of-length" });
+    expect(f.window.from_um).toBeGreaterThanOrEqual(0.1 * lengthUm);
+    expect(f.window.to_um).toBeLessThanOrEqual(0.8 * lengthUm);
+    expect(f.window.to_um).toBeGreaterThan(0.75 * lengthUm);
+    expect(f.error_model.covariance).toBe("classic");
+    const bad = await runCliInProcess(["fit", "--embryo", "wt-01", "--window", "0.5L:2L", "--db", db], {}, dir);
+    expect(bad.code).toBe(1);
+    expect(bad.stderr).toMatch(/--window: "2L" must be a fraction of the length between 0L and 1L/);
+  });
+
   it("fit --global recovers the wild-type decay length the demo was generated with", async () => {
     const out = await json("fit", "--genotype", "wt", "--channel", "glm", "--model", "finite", "--window", "30:", "--global");
     const g = out.global[0];
@@ -175,6 +214,6 @@ describe("analysis commands on the demo database", () => {
     expect(r.stderr).toContain('No stored profiles match genotype "nonesuch"');
     const c = await runCliInProcess(["precision", "--genotype", "wt", "--db", db], {}, dir);
     expect(c.code).toBe(1);
-    expect(c.stderr).toContain("Several channels are stored (glm, vellin)");
+    expect(c.stderr).toContain("Several channels are stored (glm, glm-gfp, vellin)");
   });
 });

@@ -28,7 +28,7 @@ describe("morphogauge command line", () => {
     const demo = await runCliInProcess(["demo", "--json"], { MORPHOGAUGE_DEMO_DB: env.MORPHOGAUGE_DEMO_DB }, dir);
     expect(demo.code).toBe(0);
     const out = JSON.parse(demo.stdout);
-    expect(out.files.map((f: { status: string }) => f.status)).toEqual(["imported", "imported"]);
+    expect(out.files.map((f: { status: string }) => f.status)).toEqual(["imported", "imported", "imported"]);
     const list = await runCliInProcess(["list", "--json", "--genotype", "tardy"], env, dir);
     const profiles = JSON.parse(list.stdout).profiles;
     expect(profiles).toHaveLength(30);

@@ -8,14 +8,15 @@ import { fixtureFor } from "./figureFixturesByKind.ts";
 const UNIT = /\((µm|a\.u\.|s|n|rank|group label|label|stage number|probability, 0–1|fraction of length|dimensionless[^)]*|[^)]*µm, log scale|a\.u\., log scale|[^)]*)\)$/;
 
 describe("figure registry", () => {
-  it("FIGURE_REGISTRY has every kind, each with a title and one of the five sources", () => {
+  it("FIGURE_REGISTRY has every kind, each with a title and one of the eight sources", () => {
     expect(Object.keys(FIGURE_REGISTRY).sort()).toEqual([...FIGURE_KINDS].sort());
     for (const k of FIGURE_KINDS) {
       expect(FIGURE_REGISTRY[k].title.length).toBeGreaterThan(3);
-      expect(["fit", "precision", "comparison", "tracking", "plan"]).toContain(FIGURE_REGISTRY[k].source);
+      expect(["fit", "precision", "comparison", "tracking", "plan", "dynamics", "frap", "simulation"]).toContain(FIGURE_REGISTRY[k].source);
     }
     expect(figureKindsFor("precision")).toEqual(["ensemble", "sigma-x", "boundary", "decoding-map"]);
     expect(figureKindsFor("fit")).toEqual(["profile-fit", "residuals"]);
+    expect(figureKindsFor("dynamics")).toEqual(["build-up", "build-up-residuals", "profile-likelihood-k", "accumulation-time"]);
   });
 
   it("buildFigure passes the scale option to the profile-fit builder", () => {

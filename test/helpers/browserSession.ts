@@ -58,13 +58,13 @@ export interface BrowserSession {
  * the built client, and one headless chromium with a 1280×800 page on it.
  * Fails with a clear message when chromium is not installed: these tests do not skip.
  */
-export async function startBrowserSession(options: { demo?: boolean; datasets?: DataSets } = {}): Promise<BrowserSession> {
+export async function startBrowserSession(options: { demo?: boolean; datasets?: DataSets; token?: string; chromiumArgs?: string[] } = {}): Promise<BrowserSession> {
   if (!existsSync(CHROMIUM)) {
     throw new Error(`The browser tests need Debian's chromium at ${CHROMIUM}, which is missing. Install it with "apt-get install chromium"; these tests do not skip.`);
   }
   const clientDir = await builtClientCopy();
-  const server = await startTestServer({ demo: options.demo, datasets: options.datasets, clientDir });
-  const browser = await chromium.launch({ executablePath: CHROMIUM, headless: true, args: CHROMIUM_ARGS });
+  const server = await startTestServer({ demo: options.demo, datasets: options.datasets, clientDir, token: options.token });
+  const browser = await chromium.launch({ executablePath: CHROMIUM, headless: true, args: [...CHROMIUM_ARGS, ...(options.chromiumArgs ?? [])] });
   const context = await browser.newContext({ viewport: { width: 1280, height: 800 }, acceptDownloads: true });
   const page = await context.newPage();
   const pageErrors: string[] = [];
@@ -80,7 +80,7 @@ export async function startBrowserSession(options: { demo?: boolean; datasets?: 
     page,
     pageErrors,
     async api<T>(path: string): Promise<T> {
-      const res = await fetch(`${server.url}${path}`);
+      const res = await fetch(`${server.url}${path}`, { headers: options.token ? { authorization: `Bearer ${options.token}` } : {} });
       if (!res.ok) throw new Error(`GET ${path} answered ${res.status}: ${await res.text()}`);
       return (await res.json()) as T;
     },

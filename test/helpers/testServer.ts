@@ -1,7 +1,7 @@
 import type { AddressInfo } from "node:net";
 import type { Server } from "node:http";
 import { openDatabaseSync, type Db } from "../../db/connection.ts";
-import { createApp } from "../../server/api/createApp.ts";
+import { createApp, type AppOptions } from "../../server/api/createApp.ts";
 import type { DataSets } from "../../server/services/datasets/dataSets.ts";
 import { loadDemoData } from "../../server/services/demoData.ts";
 
@@ -16,11 +16,12 @@ export interface TestServer {
  * The app on an ephemeral port of 127.0.0.1 with an in-memory database (optionally holding the demo data),
  * or with switchable data sets (`db` is then the one open at the start).
  */
-export async function startTestServer(options: { demo?: boolean; clientDir?: string; datasets?: DataSets } = {}): Promise<TestServer> {
+export async function startTestServer(options: { demo?: boolean; clientDir?: string; datasets?: DataSets } & Pick<AppOptions, "limits" | "token" | "allowedHosts"> = {}): Promise<TestServer> {
   const db = options.datasets?.db ?? openDatabaseSync(":memory:");
   if (options.demo && !options.datasets) loadDemoData(db);
   const logs: string[] = [];
-  const app = createApp(options.datasets ? { datasets: options.datasets, clientDir: options.clientDir, log: (m) => logs.push(m) } : { db, clientDir: options.clientDir, log: (m) => logs.push(m) });
+  const guards = { limits: options.limits, token: options.token, allowedHosts: options.allowedHosts };
+  const app = createApp(options.datasets ? { datasets: options.datasets, clientDir: options.clientDir, ...guards, log: (m) => logs.push(m) } : { db, clientDir: options.clientDir, ...guards, log: (m) => logs.push(m) });
   const server: Server = await new Promise((resolve) => {
     const s = app.listen(0, "127.0.0.1", () => resolve(s));
   });
@@ -34,7 +35,7 @@ export async function startTestServer(options: { demo?: boolean; clientDir?: str
     db,
     logs,
     async close() {
-      await app.jobs.close();
+      await app.close();
       const closed = new Promise((r) => server.close(r));
       server.closeAllConnections();
       await closed;
@@ -43,6 +44,9 @@ export async function startTestServer(options: { demo?: boolean; clientDir?: str
     },
   };
 }
+
+/** Headers the page sends with uploads and deletes (a plain cross-site form cannot send them). */
+export const PAGE_WRITE_HEADERS = { "x-requested-with": "morphogauge" } as const;
 
 /** multipart/form-data body with files given as name → text. */
 export function uploadForm(files: Record<string, string>, fields: Record<string, string> = {}, metaFile?: [string, string]): FormData {

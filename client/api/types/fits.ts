@@ -53,8 +53,12 @@ export interface FitDetail {
       xUm: number[];
       fitted: number[];
       residuals: number[];
+      /** The positions fitted and how they were chosen (absent in fits stored before windows were reported). */
+      window?: { fromUm: number; toUm: number; startRule: string; endRule: string; description: string } | null;
     };
   };
+  /** How the fit's standard errors and intervals were computed, in words. */
+  errorModel: { covariance: string; weights: string; description: string };
   profile: { embryo: string; genotype: string; channel: string; lengthUm: number | null; positionsUm: number[]; intensities: number[] } | null;
   caveat: string;
 }
@@ -82,6 +86,17 @@ export interface JobGlobalFit {
   per_embryo: { parameter: string; fitted: number; failed: number; mean_um: number; sd_um: number; median_um: number; sem_um: number; mean_over_global: number } | null;
   note: string | null;
   akaike_weight: number | null;
+  window?: { from_um: number; to_um: number; how_chosen: string } | null;
+  model_preference?: { model: string | null; message: string; agrees: boolean } | null;
+}
+
+/** Which model AICc prefers for a group, per fitted model (fit job result `groups`). */
+export interface JobGroupFit {
+  genotype: string;
+  channel: string;
+  model: string;
+  model_preference: { model: string | null; summed_weight: number; profiles_preferring: number; profiles_compared: number; agrees: boolean; message: string };
+  warning: string | null;
 }
 
 /** The result of a fit job (POST /api/fits). */
@@ -90,6 +105,7 @@ export interface FitJobResult {
   global: JobGlobalFit[];
   /** The named fit setting of each model's fits. */
   settings?: { name: string; model: string; description: string; renamed: boolean }[];
+  groups: JobGroupFit[];
   group_model_comparison: { genotype: string; channel: string; best: string; message: string }[];
   caveat: string;
 }

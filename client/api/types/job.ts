@@ -2,8 +2,9 @@
 export interface JobView<R = unknown> {
   id: string;
   kind: string;
-  status: "queued" | "running" | "done" | "failed" | "cancelled";
-  progress: { fraction: number; stage: string };
+  status: "queued" | "running" | "done" | "failed" | "cancelled" | "interrupted";
+  /** etaS: estimated seconds left, once there is a pace to go by. */
+  progress: { fraction: number; stage: string; etaS?: number };
   createdAt: string;
   finishedAt: string | null;
   result: R | null;
@@ -11,5 +12,5 @@ export interface JobView<R = unknown> {
 }
 
 export function isEnded(job: JobView): boolean {
-  return job.status === "done" || job.status === "failed" || job.status === "cancelled";
+  return job.status !== "queued" && job.status !== "running";
 }

@@ -66,6 +66,8 @@ export function fitDetail(fit: FitDetail): HTMLElement {
     { class: "fit-detail", "data-fit-id": String(fit.id) },
     el("h3", {}, `${label}: ${f.model} fit — ${f.status}`),
     el("p", { class: "muted" }, `${f.message}. ${f.n} points; R² = ${formatSignificant(f.r2, 4)}; residual SD = ${formatSignificant(f.residualSd, 3)} a.u.; AICc = ${f.aicc === null ? "—" : fixed(f.aicc, 1)}.`),
+    el("p", { class: "muted", "data-role": "fit-window" }, `Window: ${f.window ? f.window.description : "not recorded (fit stored by an earlier version)"}.`),
+    el("p", { class: "muted", "data-role": "fit-error-model" }, `Error model: ${fit.errorModel.description}.`),
     ...warnings,
     exclusion,
     el(

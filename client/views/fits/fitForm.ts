@@ -5,6 +5,7 @@ import type { JobView } from "../../api/types/job.ts";
 import { el } from "../../components/el.ts";
 import { button, checkboxGroup, field, numberInput, numberValue, select, textInput } from "../../components/formFields.ts";
 import { runJob } from "../../components/jobProgress.ts";
+import { warningNotice } from "../../components/notice.ts";
 import { fitsState } from "./fitsState.ts";
 
 const MODELS: [string, string][] = [
@@ -63,7 +64,14 @@ export function fitForm(choices: Choices, onSelectionChange: () => void, onDone:
     run.disabled = false;
     if (result) {
       fitsState.lastJob = result;
-      progress.replaceChildren(el("p", { class: "muted", "data-role": "fit-done" }, `Fitted ${result.fits.length} profile × model combinations${result.global.length ? ` and ${result.global.length} global fits` : ""}, under fit setting ${(result.settings ?? []).map((st) => `${st.name} (${st.description})`).join(", ")}.`));
+      progress.replaceChildren(
+        el("p", { class: "muted", "data-role": "fit-done" }, `Fitted ${result.fits.length} profile × model combinations${result.global.length ? ` and ${result.global.length} global fits` : ""}, under fit setting ${(result.settings ?? []).map((st) => `${st.name} (${st.description})`).join(", ")}.`),
+        ...(result.groups ?? []).map((g) =>
+          g.warning
+            ? warningNotice(`${g.genotype} / ${g.channel}: ${g.warning}`)
+            : el("p", { class: "muted", "data-role": "model-preference" }, `${g.genotype} / ${g.channel}: ${g.model_preference.message}.`),
+        ),
+      );
       onDone(result);
     }
   };

@@ -1,5 +1,6 @@
 import { el } from "../../components/el.ts";
 import { keyNumbers } from "../../components/keyNumbers.ts";
+import { warningNotice } from "../../components/notice.ts";
 import { formatEstimate } from "../../format/formatEstimate.ts";
 import { fixed, formatSignificant } from "../../format/significant.ts";
 import { uncertaintyDecimals } from "../../format/uncertaintyDecimals.ts";
@@ -30,6 +31,8 @@ export function globalFitCard(g: GlobalFitView, ranking?: string): HTMLElement {
     ]),
     el("p", { class: "muted" }, `${g.status}: ${g.message}`),
     g.note ? el("p", {}, g.note) : null,
+    g.window ? el("p", { class: "muted", "data-role": "global-window" }, `Window: ${g.window}.`) : null,
+    g.preference ? (g.preference.agrees ? el("p", { class: "muted" }, `${g.preference.message}.`) : warningNotice(g.preference.message)) : null,
     ranking ? el("p", {}, `Model ranking for the group: ${ranking}`) : null,
   );
 }

@@ -12,6 +12,10 @@ export interface GlobalFitView {
   lambdaUm: Estimate | null;
   perEmbryo: { fitted: number; failed: number; meanUm: number; sdUm: number; medianUm: number; semUm: number; meanOverGlobal: number } | null;
   note: string | null;
+  /** The embryos' windows in words (absent for analyses stored before it was recorded). */
+  window: string | null;
+  /** Which model AICc prefers for the group, and whether it is the fitted one. */
+  preference: { message: string; agrees: boolean } | null;
 }
 
 /** A stored global-fit analysis as GET /api/analyses/:id returns it (only the fields shown). */
@@ -20,7 +24,8 @@ export interface StoredGlobalFit {
   selection: { genotype?: string; channel?: string };
   settings: { model: string };
   result: {
-    fit: { status: string; message: string; shared?: { lambdaUm?: Estimate } };
+    fit: { status: string; message: string; shared?: { lambdaUm?: Estimate }; window?: { description: string } | null };
+    modelPreference?: { message: string; agrees: boolean } | null;
     summary: { fitted: number; failed: number; meanUm: number; sdUm: number; medianUm: number; semUm: number; meanOverGlobal: number; note: string | null } | null;
   };
 }
@@ -38,6 +43,8 @@ export function globalFromJob(g: JobGlobalFit): GlobalFitView {
     lambdaUm: g.lambda_um,
     perEmbryo: p ? { fitted: p.fitted, failed: p.failed, meanUm: p.mean_um, sdUm: p.sd_um, medianUm: p.median_um, semUm: p.sem_um, meanOverGlobal: p.mean_over_global } : null,
     note: g.note,
+    window: g.window?.how_chosen ?? null,
+    preference: g.model_preference ? { message: g.model_preference.message, agrees: g.model_preference.agrees } : null,
   };
 }
 
@@ -54,5 +61,7 @@ export function globalFromStored(a: StoredGlobalFit): GlobalFitView {
     lambdaUm: a.result.fit.shared?.lambdaUm ?? null,
     perEmbryo: s ? { fitted: s.fitted, failed: s.failed, meanUm: s.meanUm, sdUm: s.sdUm, medianUm: s.medianUm, semUm: s.semUm, meanOverGlobal: s.meanOverGlobal } : null,
     note: s?.note ?? null,
+    window: a.result.fit.window?.description ?? null,
+    preference: a.result.modelPreference ? { message: a.result.modelPreference.message, agrees: a.result.modelPreference.agrees } : null,
   };
 }

@@ -7,7 +7,10 @@ import type { ResolvedFitOptions } from "./fitOptions.ts";
 import { formatNumber } from "./formatNumber.ts";
 import { informationCriteria, sumOfLogWeights } from "./informationCriteria.ts";
 import { parameterEstimate, type ParameterEstimate } from "./parameterEstimate.ts";
-import { prepareProfile, releasePreparedProfile, type PreparedProfile } from "./prepareProfile.ts";
+import { prepareWindowedProfile, type FitWindow } from "./fitWindow.ts";
+import { releasePreparedProfile, type PreparedProfile } from "./prepareProfile.ts";
+import { residualCheck, type ResidualCheck } from "./residualCheck.ts";
+import { sandwichCovariance } from "./sandwichCovariance.ts";
 import { ProjectedProblem } from "./projectedProblem.ts";
 import { resolveParameters } from "./resolveParameters.ts";
 import { SeparableBlock } from "./separableBlock.ts";
@@ -34,6 +37,8 @@ export interface ReplicateEstimates {
   background: ParameterEstimate;
   /** This profile's share of the residual sum of squares. */
   rss: number;
+  /** The positions fitted in this profile (µm) and how they were chosen. */
+  window: FitWindow;
   xUm: number[];
   fitted: number[];
   residuals: number[];
@@ -50,6 +55,10 @@ interface GlobalFitCommon {
   profileCount: number;
   iterations: number;
   options: ResolvedFitOptions;
+  /** Over all profiles: from the smallest start to the largest end (µm), and how the ends were chosen; null when the input was unusable. */
+  window: FitWindow | null;
+  /** How standard errors and intervals were computed: "hc3" sandwich or "classic" s²(JᵀJ)⁻¹. */
+  errorModel: "hc3" | "classic";
 }
 
 export interface GlobalFit extends GlobalFitCommon {
@@ -64,6 +73,8 @@ export interface GlobalFit extends GlobalFitCommon {
   logLikelihood: number | null;
   dof: number;
   residualSd: number;
+  /** Residuals of all profiles against the error model (runs counted within each profile). */
+  residualCheck: ResidualCheck;
 }
 
 export interface GlobalFitFailure extends GlobalFitCommon {
@@ -79,33 +90,50 @@ export type GlobalFitResult = GlobalFit | GlobalFitFailure;
  * profile. Solved by variable projection like a single fit: every profile's
  * linear parameters are eliminated separately (the linear part is
  * block-diagonal), so the cost grows only linearly with the number of
- * embryos. The standard error of λ comes from the full covariance of all
- * parameters through the Schur complement (blockCovariance.ts).
+ * embryos. Each profile gets its own window (its start past a detected
+ * source plateau or dip unless given, fitWindow.ts). The standard error of λ
+ * comes from the full covariance of all parameters: by default the HC3
+ * sandwich (sandwichCovariance.ts), else s²(JᵀJ)⁻¹ through the Schur
+ * complement (blockCovariance.ts); λ's interval is on the log scale.
  * Source: variable projection, Golub & Pereyra 1973, SIAM J Numer Anal.
  */
 export function fitGlobal(profiles: readonly ReplicateProfile[], options: ResolvedFitOptions): GlobalFitResult {
   const model = modelRegistry[options.model];
   const warnings: string[] = [];
   const linearCount = options.background ? 2 : 1;
+  let window: FitWindow | null = null;
   const fail = (status: GlobalFitFailure["status"], message: string, n = 0, p = 0, iterations = 0): GlobalFitFailure => ({
-    ok: false, model: model.name, status, message, warnings, n, p, profileCount: profiles.length, iterations, options,
+    ok: false, model: model.name, status, message, warnings, n, p, profileCount: profiles.length, iterations, options, window, errorModel: options.errorModel,
   });
   if (profiles.length === 0) return fail("invalid-input", "no profiles to fit");
 
   const prepared: PreparedProfile[] = [];
+  const windows: FitWindow[] = [];
   let blocks: SeparableBlock[] = [];
   try {
+    const autoStarts: number[] = [];
     for (let k = 0; k < profiles.length; k++) {
       const profile = profiles[k];
-      const outcome = prepareProfile(profile.x, profile.y, options, { lengthUm: profile.lengthUm, variance: profile.variance });
-      if (!outcome.ok) return fail("invalid-input", `profile ${k}: ${outcome.message}`);
+      const windowWarnings: string[] = [];
+      const { outcome, window: profileWindow } = prepareWindowedProfile(profile.x, profile.y, options, { lengthUm: profile.lengthUm, variance: profile.variance }, windowWarnings);
+      if (!outcome.ok || profileWindow === null) return fail("invalid-input", `profile ${k}: ${outcome.ok ? "no usable points" : outcome.message}`);
       const p = outcome.profile;
       prepared.push(p);
+      windows.push(profileWindow);
+      if (profileWindow.startRule === "past-source-plateau" || profileWindow.startRule === "past-source-dip") autoStarts.push(k);
       if (p.droppedNonFinite > 0) warnings.push(`profile ${k}: ${p.droppedNonFinite} point(s) skipped because a value was missing or not finite`);
       if (p.x.length < linearCount + 1)
         return fail("too-few-points", `profile ${k} has ${p.x.length} point(s) in the window; each profile needs at least ${linearCount + 1} for its own amplitude${options.background ? " and background" : ""}`);
       const domainProblem = model.checkDomain(p.extent);
       if (domainProblem !== null) return fail("invalid-input", `profile ${k}: ${domainProblem}`);
+    }
+    window = combineWindows(windows);
+    if (autoStarts.length > 0) {
+      const starts = autoStarts.map((k) => windows[k].fromUm);
+      warnings.push(
+        `a source plateau or dip was detected in ${autoStarts.length} of ${profiles.length} profile(s) (${autoStarts.join(", ")}), whose fits start past it, at ${formatNumber(Math.min(...starts))}–${formatNumber(Math.max(...starts))} µm; ` +
+          "to fit from the first point give the window's start (--window 0: on the command line, window.xMinUm in the options) or turn autoWindow off",
+      );
     }
     const n = prepared.reduce((acc, p) => acc + p.x.length, 0);
     if (prepared.every((p) => p.constant)) return fail("no-decay", "No decay: every profile is constant");
@@ -142,7 +170,7 @@ export function fitGlobal(profiles: readonly ReplicateProfile[], options: Resolv
     if (rising.length > 0)
       warnings.push(`profile(s) ${rising.join(", ")} have amplitude ≤ 0 and do not decay; check them (flipped end to end?) or leave them out`);
 
-    const unitWeights = prepared.every((prof) => prof.weights === null) && options.weights !== "poisson" && options.robust.loss === "none";
+    const unitWeights = prepared.every((prof) => prof.weights === null) && (options.weights === "none" || options.weights === "inverse-variance") && options.robust.loss === "none";
     const sumLogWeights = unitWeights ? 0 : blocks.reduce((acc, b) => acc + sumOfLogWeights(b.weights), 0);
     const criteria = informationCriteria(solution.rss, n, p, sumLogWeights);
     // Flat alternative: each profile its own constant level.
@@ -154,11 +182,11 @@ export function fitGlobal(profiles: readonly ReplicateProfile[], options: Resolv
     const dof = n - p;
     const s2 = solution.rss / dof;
     const t = tQuantile95(dof);
-    const covariance = blockCovariance(problem, s2);
+    const covariance = options.errorModel === "hc3" ? sandwichCovariance(problem) : blockCovariance(problem, s2);
     const shared: Record<string, ParameterEstimate> = {};
     model.parameters.forEach((parameter, j) => {
       const k = resolved.free.indexOf(j);
-      shared[parameter.name] = parameterEstimate(problem.theta[j], k >= 0 && covariance ? covariance.nonlinear[k][k] : null, t, parameter.unit, k < 0);
+      shared[parameter.name] = parameterEstimate(problem.theta[j], k >= 0 && covariance ? covariance.nonlinear[k][k] : null, t, parameter.unit, k < 0, true);
     });
     boundWarnings(model, resolved, solution.atBound, warnings);
     if (options.weights === "poisson" || options.robust.loss !== "none")
@@ -185,11 +213,24 @@ export function fitGlobal(profiles: readonly ReplicateProfile[], options: Resolv
           ? parameterEstimate(b.background, linear ? linear[1][1] : null, t, "a.u.")
           : parameterEstimate(offset, null, t, "a.u.", true),
         rss: b.rss,
+        window: windows[k],
         xUm,
         fitted,
         residuals,
       };
     });
+
+    const allFitted: number[] = [];
+    const allResiduals: number[] = [];
+    const segments: number[] = [];
+    for (const b of blocks) {
+      segments.push(allFitted.length);
+      for (let i = 0; i < b.n; i++) {
+        allFitted.push(b.amplitude * b.basisValues[i] + b.background + offset);
+        allResiduals.push(b.residual[i]);
+      }
+    }
+    const check = residualCheck(allFitted, allResiduals, options.errorModel, warnings, "", segments);
 
     let status: GlobalFit["status"] = "converged";
     let message = `Converged after ${iterations} iteration(s) over ${blocks.length} profiles`;
@@ -214,6 +255,8 @@ export function fitGlobal(profiles: readonly ReplicateProfile[], options: Resolv
       profileCount: blocks.length,
       iterations,
       options,
+      window,
+      errorModel: options.errorModel,
       shared,
       profiles: replicates,
       rss: solution.rss,
@@ -222,6 +265,7 @@ export function fitGlobal(profiles: readonly ReplicateProfile[], options: Resolv
       logLikelihood: criteria.logLikelihood,
       dof,
       residualSd: Math.sqrt(s2),
+      residualCheck: check,
     };
   } finally {
     // The pooled work arrays go back once the results hold their own copies.
@@ -234,4 +278,19 @@ export function fitGlobal(profiles: readonly ReplicateProfile[], options: Resolv
 function logMedian(values: number[]): number {
   const logs = values.filter((v) => Number.isFinite(v) && v > 0).map(Math.log);
   return logs.length === 0 ? NaN : Math.exp(median(logs));
+}
+
+/** One window describing several profiles' windows: the widest span, and the rules when they agree. */
+function combineWindows(windows: readonly FitWindow[]): FitWindow {
+  const fromUm = Math.min(...windows.map((w) => w.fromUm));
+  const toUm = Math.max(...windows.map((w) => w.toUm));
+  const auto = windows.filter((w) => w.startRule === "past-source-plateau" || w.startRule === "past-source-dip").length;
+  const startRule = auto > 0 ? (windows.some((w) => w.startRule === "past-source-dip") ? "past-source-dip" : "past-source-plateau") : windows[0].startRule;
+  const endRule = windows[0].endRule;
+  const description =
+    windows.length === 1
+      ? windows[0].description
+      : `${formatNumber(fromUm)}–${formatNumber(toUm)} µm over ${windows.length} profiles` +
+        (auto > 0 ? ` (start past a detected source plateau or dip in ${auto} of them, each profile's own window)` : windows.every((w) => w.description === windows[0].description) ? ` (${windows[0].description})` : " (each profile's own window)");
+  return { fromUm, toUm, startRule, endRule, description };
 }

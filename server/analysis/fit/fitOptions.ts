@@ -13,14 +13,52 @@ export const FitOptions = z
   .strictObject({
     /** Steady-state model; "exponential" by default. */
     model: z.enum(modelNames).default("exponential"),
-    /** Fit only positions with xMinUm ≤ x ≤ xMaxUm (µm); the whole profile when absent. */
+    /**
+     * Fit only positions inside the window. Each end is given either in µm
+     * (xMinUm, xMaxUm) or as a fraction of the embryo's length L
+     * (xMinFractionOfLength, xMaxFractionOfLength: 0.1 means 0.1·L), since
+     * embryos differ in length; not both for the same end. An end left open
+     * is the end of the data, except that the start moves past a detected
+     * source plateau or dip when `autoWindow` is true.
+     */
     window: z
-      .strictObject({ xMinUm: z.number().optional(), xMaxUm: z.number().optional() })
+      .strictObject({
+        xMinUm: z.number().optional(),
+        xMaxUm: z.number().optional(),
+        xMinFractionOfLength: z.number().min(0).max(1).optional(),
+        xMaxFractionOfLength: z.number().min(0).max(1).optional(),
+      })
       .refine((w) => w.xMinUm === undefined || w.xMaxUm === undefined || w.xMinUm < w.xMaxUm, {
         message: "window.xMinUm must be smaller than window.xMaxUm",
         path: ["xMaxUm"],
       })
+      .refine((w) => w.xMinUm === undefined || w.xMinFractionOfLength === undefined, {
+        message: "give the window's start either in µm or as a fraction of the embryo length, not both",
+        path: ["xMinFractionOfLength"],
+      })
+      .refine((w) => w.xMaxUm === undefined || w.xMaxFractionOfLength === undefined, {
+        message: "give the window's end either in µm or as a fraction of the embryo length, not both",
+        path: ["xMaxFractionOfLength"],
+      })
+      .refine((w) => w.xMinFractionOfLength === undefined || w.xMaxFractionOfLength === undefined || w.xMinFractionOfLength < w.xMaxFractionOfLength, {
+        message: "window.xMinFractionOfLength must be smaller than window.xMaxFractionOfLength",
+        path: ["xMaxFractionOfLength"],
+      })
       .optional(),
+    /**
+     * When the window's start is not given, start the fit past a source
+     * plateau or dip (a flat or rising start of the profile) when one is
+     * detected, and say so in the result; true by default. The `source`
+     * model describes the source region itself and is never trimmed.
+     */
+    autoWindow: z.boolean().default(true),
+    /**
+     * How standard errors and intervals are computed: "hc3" (the default), a
+     * heteroscedasticity-consistent sandwich covariance that stays valid when
+     * the noise grows with the intensity, as fluorescence noise does; or
+     * "classic", s²(JᵀJ)⁻¹, which assumes the same noise at every point.
+     */
+    errorModel: z.enum(["hc3", "classic"]).default("hc3"),
     /**
      * Parameters held at a given value instead of fitted. A value for a
      * parameter the chosen model does not have is ignored with a warning, so
@@ -43,13 +81,17 @@ export const FitOptions = z
     /** Fit an additive background B; true by default. When false, B = fixed.background or 0. */
     background: z.boolean().default(true),
     /**
-     * Point weights: "none" (ordinary least squares, the default);
+     * Point weights: "intensity" (the default), 1/(a + b·μ²) with μ the
+     * fitted intensity and a, b estimated from the fit's own residuals,
+     * because fluorescence noise has a constant part and a part that grows
+     * with the signal (when the noise is constant, b ≈ 0 and the fit is
+     * ordinary least squares); "none" (ordinary least squares);
      * "inverse-variance", 1/σ² from a variance array supplied with the
      * profile (e.g. the across-embryo variance of a mean profile);
-     * "poisson", 1/μ with μ the fitted intensity, for photon-counting noise
-     * whose variance grows with the signal.
+     * "poisson", 1/μ, for photon-counting noise whose variance is
+     * proportional to the signal.
      */
-    weights: z.enum(["none", "inverse-variance", "poisson"]).default("none"),
+    weights: z.enum(["intensity", "none", "inverse-variance", "poisson"]).default("intensity"),
     /** Outlier-resistant loss, applied by iteratively reweighted least squares. */
     robust: z
       .strictObject({

@@ -9,7 +9,10 @@ import { boundWarnings } from "./boundWarnings.ts";
 import { formatNumber } from "./formatNumber.ts";
 import { informationCriteria, sumOfLogWeights } from "./informationCriteria.ts";
 import { parameterEstimate, type ParameterEstimate } from "./parameterEstimate.ts";
-import { prepareProfile, releasePreparedProfile, type ProfileContext } from "./prepareProfile.ts";
+import { prepareWindowedProfile, type FitWindow } from "./fitWindow.ts";
+import { releasePreparedProfile, type ProfileContext } from "./prepareProfile.ts";
+import { residualCheck, type ResidualCheck } from "./residualCheck.ts";
+import { sandwichCovariance } from "./sandwichCovariance.ts";
 import { ProjectedProblem } from "./projectedProblem.ts";
 import { resolveParameters } from "./resolveParameters.ts";
 import { SeparableBlock } from "./separableBlock.ts";
@@ -34,6 +37,10 @@ interface FitCommon {
   lengthUm: number | null;
   /** The options the fit ran with, after defaults. */
   options: ResolvedFitOptions;
+  /** The positions fitted (µm) and how they were chosen; null when the input was unusable. */
+  window: FitWindow | null;
+  /** How standard errors and intervals were computed (options.errorModel): "hc3" sandwich or "classic" s²(JᵀJ)⁻¹. */
+  errorModel: "hc3" | "classic";
 }
 
 /** A fit that produced parameter values. */
@@ -45,7 +52,7 @@ export interface ProfileFit extends FitCommon {
   parameters: Record<string, ParameterEstimate>;
   /** Quantities implied by the parameters (e.g. diffusionOverDegradationUm2 = λ²). */
   derived: Record<string, ParameterEstimate>;
-  /** s²(JᵀJ)⁻¹ over the fitted parameters, or null when ill-conditioned. */
+  /** Covariance over the fitted parameters (the HC3 sandwich or s²(JᵀJ)⁻¹, see errorModel), or null when ill-conditioned. */
   covariance: NamedMatrix | null;
   correlation: NamedMatrix | null;
   /** Residual sum of squares (weighted when weights are used). */
@@ -64,6 +71,8 @@ export interface ProfileFit extends FitCommon {
   residuals: number[];
   /** Scale of the robust loss (standardised residual units), null without one. */
   robustScale: number | null;
+  /** Do the residuals fit the error model? (trend of |residual| with intensity, runs of signs) */
+  residualCheck: ResidualCheck;
 }
 
 /** A fit that could not produce meaningful parameter values. */
@@ -78,10 +87,14 @@ export type FitResult = ProfileFit | ProfileFitFailure;
  * Fit one steady-state gradient profile (positions in µm, intensities in
  * a.u.) by variable projection: the amplitude and background are solved
  * linearly for every trial of the nonlinear parameters, which are found by
- * Levenberg–Marquardt with a bracketing fallback. Standard errors come from
- * the full covariance s²(JᵀJ)⁻¹ of all fitted parameters, 95% intervals from
- * t-quantiles at n − p degrees of freedom. Outcomes are data: the result
- * says whether it converged, and why not.
+ * Levenberg–Marquardt with a bracketing fallback. The window is the one
+ * asked for, its start moved past a detected source plateau or dip unless
+ * given (fitWindow.ts). Standard errors come from the full covariance of all
+ * fitted parameters — by default the HC3 sandwich, which holds when the noise
+ * grows with the intensity (sandwichCovariance.ts), or s²(JᵀJ)⁻¹ — and 95%
+ * intervals from t-quantiles at n − p degrees of freedom, on the log scale
+ * for the positive nonlinear parameters (λ, s, x0, m). Outcomes are data: the
+ * result says whether it converged, and why not.
  */
 export function fitProfile(
   x: ArrayLike<number>,
@@ -93,11 +106,14 @@ export function fitProfile(
   const warnings: string[] = [];
   const lengthUm = context.lengthUm ?? null;
   const linearCount = options.background ? 2 : 1;
+  let window: FitWindow | null = null;
   const fail = (status: ProfileFitFailure["status"], message: string, n: number, p: number, iterations = 0): ProfileFitFailure => ({
-    ok: false, model: model.name, status, message, warnings, n, p, iterations, lengthUm, options,
+    ok: false, model: model.name, status, message, warnings, n, p, iterations, lengthUm, options, window, errorModel: options.errorModel,
   });
 
-  const prepared = prepareProfile(x, y, options, context);
+  const windowed = prepareWindowedProfile(x, y, options, context, warnings);
+  const prepared = windowed.outcome;
+  window = windowed.window;
   if (!prepared.ok) return fail("invalid-input", prepared.message, 0, 0);
   const profile = prepared.profile;
   let block: SeparableBlock | null = null;
@@ -131,7 +147,7 @@ export function fitProfile(
     if (lengthScaleFreeIndex >= 0 && solution.atBound[lengthScaleFreeIndex] === 1)
       return fail("no-decay", `No decay within the window: the best ${lengthScale.name} runs to its upper limit (${formatNumber(resolved.upper[lengthScaleFreeIndex])} µm, 1000× the window), so the profile is flat or falls only linearly`, n, p, iterations);
 
-    const unitWeights = profile.weights === null && options.weights !== "poisson" && options.robust.loss === "none";
+    const unitWeights = profile.weights === null && (options.weights === "none" || options.weights === "inverse-variance") && options.robust.loss === "none";
     const sumLogWeights = unitWeights ? 0 : sumOfLogWeights(block.weights);
     const criteria = informationCriteria(solution.rss, n, p, sumLogWeights);
     const tss = weightedTotalSumOfSquares(profile.y, block.weights);
@@ -144,14 +160,14 @@ export function fitProfile(
     const dof = n - p;
     const s2 = solution.rss / dof;
     const t = tQuantile95(dof);
-    const covariance = blockCovariance(problem, s2);
+    const covariance = options.errorModel === "hc3" ? sandwichCovariance(problem) : blockCovariance(problem, s2);
     const names = [...resolved.free.map((j) => model.parameters[j].name), "amplitude", ...(options.background ? ["background"] : [])];
     const fullCovariance = covariance === null ? null : assembleCovariance(covariance.nonlinear, covariance.linear[0], covariance.cross[0]);
 
     const parameters: Record<string, ParameterEstimate> = {};
     model.parameters.forEach((parameter, j) => {
       const k = resolved.free.indexOf(j);
-      parameters[parameter.name] = parameterEstimate(theta[j], k >= 0 && fullCovariance ? fullCovariance[k][k] : null, t, parameter.unit, k < 0);
+      parameters[parameter.name] = parameterEstimate(theta[j], k >= 0 && fullCovariance ? fullCovariance[k][k] : null, t, parameter.unit, k < 0, true);
     });
     const pf = resolved.free.length;
     parameters.amplitude = parameterEstimate(block.amplitude, fullCovariance ? fullCovariance[pf][pf] : null, t, "a.u.");
@@ -178,6 +194,7 @@ export function fitProfile(
       residuals[i] = profile.y[i] - mu;
     }
     const covarianceNamed = fullCovariance ? { names, matrix: fullCovariance } : null;
+    const check = residualCheck(fitted, block.residual, options.errorModel, warnings);
 
     let status: ProfileFit["status"] = "converged";
     let message = `Converged after ${iterations} iteration(s)`;
@@ -203,6 +220,8 @@ export function fitProfile(
       iterations,
       lengthUm,
       options,
+      window,
+      errorModel: options.errorModel,
       parameters,
       derived,
       covariance: covarianceNamed,
@@ -218,6 +237,7 @@ export function fitProfile(
       fitted,
       residuals,
       robustScale: solution.robustScale,
+      residualCheck: check,
     };
   } finally {
     // The pooled work arrays go back once the results hold their own copies.
@@ -268,7 +288,7 @@ function derivedEstimates(
       const g = [...free.map((j) => gradient[j]), gradient[P], ...(fitBackground ? [gradient[P + 1]] : [])];
       variance = g.every(Number.isFinite) ? deltaMethodVariance(g, covariance) : null;
     }
-    out[quantity.name] = parameterEstimate(value, variance, t, quantity.unit);
+    out[quantity.name] = parameterEstimate(value, variance, t, quantity.unit, false, quantity.positive === true);
   }
   return out;
 }

@@ -17,3 +17,7 @@ export { parameterEstimate, type ParameterEstimate } from "./parameterEstimate.t
 export { correlationMatrix, type NamedMatrix } from "./correlationMatrix.ts";
 export { deltaMethodVariance } from "./deltaMethod.ts";
 export type { ProfileContext } from "./prepareProfile.ts";
+export { modelPreference, type ModelPreference } from "./modelPreference.ts";
+export { type FitWindow, type WindowEndRule } from "./fitWindow.ts";
+export { type ResidualCheck } from "./residualCheck.ts";
+export { describeErrorModel, type ErrorModelDescription } from "./describeErrorModel.ts";

@@ -33,7 +33,8 @@ export type PrepareOutcome = { ok: true; profile: PreparedProfile } | { ok: fals
 /**
  * Select the points to fit: finite positions and intensities (and positive
  * finite variances for inverse-variance weights) inside the window, sorted
- * by position, fixed background subtracted. Mismatched array lengths are a
+ * by position, fixed background subtracted. `range` (µm) overrides the
+ * options' window, e.g. with ends resolved from the embryo length. Mismatched array lengths are a
  * programmer error and throw; everything a user can cause returns a message.
  */
 export function prepareProfile(
@@ -41,6 +42,7 @@ export function prepareProfile(
   y: ArrayLike<number>,
   options: ResolvedFitOptions,
   context: ProfileContext = {},
+  range: { minUm: number; maxUm: number } = { minUm: options.window?.xMinUm ?? -Infinity, maxUm: options.window?.xMaxUm ?? Infinity },
 ): PrepareOutcome {
   if (x.length !== y.length) throw new RangeError(`fit: x has ${x.length} values but y has ${y.length}`);
   const variance = context.variance;
@@ -53,8 +55,8 @@ export function prepareProfile(
   if (lengthUm !== null && !(lengthUm > 0 && Number.isFinite(lengthUm)))
     return { ok: false, message: `the embryo length must be a positive number of µm, got ${lengthUm}` };
 
-  const lo = options.window?.xMinUm ?? -Infinity;
-  const hi = options.window?.xMaxUm ?? Infinity;
+  const lo = range.minUm;
+  const hi = range.maxUm;
   const offset = options.fixed.background ?? 0;
   const usable = (i: number) => {
     const v = useVariance && variance ? variance[i] : 1;

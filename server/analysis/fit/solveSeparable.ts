@@ -49,8 +49,9 @@ export function solveSeparable(
   };
   const blocks = problem.blocks;
   const poisson = options.weights === "poisson";
+  const intensity = options.weights === "intensity";
   const loss = options.robust.loss;
-  const reweighting = poisson || loss !== "none";
+  const reweighting = poisson || intensity || loss !== "none";
   const offset = options.fixed.background ?? 0;
   // Poisson variance ∝ the intensity including any fixed background; floor it
   // at 1e-3 of the largest intensity so near-zero values do not dominate.
@@ -124,13 +125,16 @@ export function solveSeparable(
   let previous = snapshot(problem, result.values);
   let reweightings = 0;
   let reweightingConverged = false;
+  let varianceModel: VarianceModel | null = null;
   while (reweightings < options.maxReweightings) {
     reweightings++;
+    if (intensity) varianceModel = intensityVarianceModel(problem, offset, varianceModel);
     blocks.forEach((b, k) => {
       const base = baseWeights[k];
       const mu = b.fittedValues(work[k]);
       for (let i = 0; i < b.n; i++) {
         if (poisson) poissonFactor[k][i] = 1 / Math.max(mu[i] + offset, floors[k]);
+        if (varianceModel) poissonFactor[k][i] = 1 / Math.max(varianceModel.a + varianceModel.b * (mu[i] + offset) ** 2, varianceModel.floor);
         const w0 = (base ? base[i] : 1) * poissonFactor[k][i];
         const standardised = Math.sqrt(w0) * (b.y[i] - mu[i]);
         work[k][i] = w0 * (robustScale === null ? 1 : robustWeight(loss, standardised, robustScale));
@@ -142,7 +146,8 @@ export function solveSeparable(
     const current = snapshot(problem, result.values);
     const change = relativeChange(previous, current, blocks.length);
     previous = current;
-    if (change <= Math.max(options.tolerance.step, 1e-12)) {
+    // Estimated intensity weights carry sampling error far above 1e-6, so a tighter fixed point buys nothing.
+    if (change <= Math.max(options.tolerance.step, intensity && !poisson && loss === "none" ? 1e-6 : 1e-12)) {
       reweightingConverged = true;
       break;
     }
@@ -159,6 +164,51 @@ export function solveSeparable(
     reweightingConverged,
     robustScale,
   };
+}
+
+/**
+ * Variance function σ² = a + b·μ² (a, b ≥ 0) fitted by least squares to the
+ * squared residuals r² of every block against their fitted intensity μ: the
+ * constant part is camera/background noise, the part growing with μ² is
+ * multiplicative (fluorescence) noise. r² is weighted by the previous
+ * round's 1/σ⁴, since its variance grows as σ⁴. Iterating weights 1/σ²(μ) and the fit
+ * is the usual estimated-weights scheme (Carroll & Ruppert 1988,
+ * Transformation and Weighting in Regression, ch. 2 [memory]). The variance
+ * is floored at 1e-3 of its value at the largest intensity so that points
+ * near zero do not dominate.
+ */
+interface VarianceModel {
+  a: number;
+  b: number;
+  floor: number;
+}
+
+function intensityVarianceModel(problem: ProjectedProblem, offset: number, previous: VarianceModel | null): VarianceModel {
+  let s1 = 0, sm = 0, smm = 0, sr = 0, smr = 0, muMax = 0;
+  for (const b of problem.blocks) {
+    for (let i = 0; i < b.n; i++) {
+      const mu = b.amplitude * b.basisValues[i] + b.background;
+      const r = b.y[i] - mu;
+      const m2 = (mu + offset) ** 2;
+      // r² has variance ∝ σ⁴: weight by the previous round's 1/σ⁴ (unweighted in the first round).
+      const v = previous ? Math.max(previous.a + previous.b * m2, previous.floor) : 1;
+      const w = 1 / (v * v);
+      s1 += w;
+      sm += w * m2;
+      smm += w * m2 * m2;
+      sr += w * r * r;
+      smr += w * m2 * r * r;
+      muMax = Math.max(muMax, m2);
+    }
+  }
+  const det = s1 * smm - sm * sm;
+  let a = det > 0 ? (smm * sr - sm * smr) / det : sr / s1;
+  let b = det > 0 ? (s1 * smr - sm * sr) / det : 0;
+  if (b < 0) { b = 0; a = sr / s1; }
+  if (a < 0) { a = 0; b = smm > 0 ? smr / smm : 0; }
+  const top = a + b * muMax;
+  const floor = Math.max(1e-3 * top, 1e-300);
+  return top > 0 ? { a, b, floor } : { a: 1, b: 0, floor: 1e-300 };
 }
 
 /** Nonlinear values followed by each block's amplitude and background. */

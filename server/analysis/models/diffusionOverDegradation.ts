@@ -8,6 +8,7 @@ import type { DerivedQuantity } from "./steadyStateModel.ts";
 export const diffusionOverDegradation: DerivedQuantity = {
   name: "diffusionOverDegradationUm2",
   unit: "µm²",
+  positive: true,
   description: "D/k = λ²; D and k separately need a second measurement (FRAP or build-up kinetics)",
   evaluate(theta, _amplitude, _background, gradient) {
     const lambdaUm = theta[0];

@@ -39,6 +39,8 @@ export interface DerivedQuantity {
   name: string;
   unit: string;
   description: string;
+  /** Positive by definition (e.g. λ²): its 95% interval is computed on the log scale. */
+  positive?: boolean;
   /**
    * Value from the nonlinear parameters θ and the linear ones; writes the
    * gradient with respect to [θ…, amplitude, background] into `gradient`

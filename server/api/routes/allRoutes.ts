@@ -1,5 +1,6 @@
 import type { RouteDefinition } from "../route.ts";
 import { datasetRoutes } from "./datasetRoutes.ts";
+import { dynamicsRoutes } from "./dynamicsRoutes.ts";
 import { exportRoutes } from "./exportRoutes.ts";
 import { figureRoutes } from "./figureRoutes.ts";
 import { fitRoutes } from "./fitRoutes.ts";
@@ -11,4 +12,4 @@ import { profileRoutes } from "./profileRoutes.ts";
 import { exclusionRoutes } from "./exclusionRoutes.ts";
 
 /** Every API route, in the order the reference lists them. */
-export const ALL_ROUTES: RouteDefinition[] = [...datasetRoutes, ...importRoutes, ...profileRoutes, ...fitRoutes, ...exclusionRoutes, ...precisionRoutes, ...groupRoutes, ...jobRoutes, ...figureRoutes, ...exportRoutes];
+export const ALL_ROUTES: RouteDefinition[] = [...datasetRoutes, ...importRoutes, ...profileRoutes, ...fitRoutes, ...exclusionRoutes, ...precisionRoutes, ...groupRoutes, ...dynamicsRoutes, ...jobRoutes, ...figureRoutes, ...exportRoutes];

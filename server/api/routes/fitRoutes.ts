@@ -10,6 +10,7 @@ import { UserError } from "../../userError.ts";
 import { weightStoredFits } from "../../services/fits/weightStoredFits.ts";
 import { assignMissingFitSettings } from "../../services/fits/fitSettings.ts";
 import { defineRoute, IdParams } from "../route.ts";
+import { submitJob } from "../submitJob.ts";
 
 export const fitRoutes = [
   defineRoute({
@@ -17,12 +18,12 @@ export const fitRoutes = [
     path: "/api/fits",
     tag: "fits",
     summary: "Start fitting the selected profiles (a background job; poll /api/jobs/{id})",
-    description: `The job's result lists every fit with λ ± SE and its 95% CI, and the global fits when asked. ${steadyStateCaveat}`,
+    description: `The job's result lists every fit with λ ± SE and its 95% CI, its \`window\` (from_um, to_um, how it was chosen: by default past a detected source plateau or dip; options.window takes µm or fractions of the embryo length), its \`error_model\` (by default intensity weights with the HC3 sandwich covariance; options.errorModel "classic" for s²(JᵀJ)⁻¹) and \`residual_check\`; per genotype × channel group, \`groups[].model_preference\` says which model AICc prefers; and the global fits when asked. ${steadyStateCaveat}`,
     body: FitRequest,
     status: 202,
-    handler({ db, jobs, body }) {
-      const input = prepareFitInput(db, body);
-      return jobs.submit("fit", input, (output) => storeFitOutput(db, input, output as FitTaskOutput));
+    handler(ctx) {
+      const input = prepareFitInput(ctx.db, ctx.body);
+      return submitJob<FitTaskOutput>(ctx, "fit", input, { profileIds: input.profiles.map((p) => p.profileId), store: (output) => storeFitOutput(ctx.db, input, output) });
     },
   }),
   defineRoute({

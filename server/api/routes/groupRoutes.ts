@@ -5,7 +5,9 @@ import { prepareComparison, storeComparison } from "../../services/groups/compar
 import { PlanRequest, TrackRequest } from "../../services/groups/trackRequest.ts";
 import { preparePlan, prepareTracking, storePlan, storeTracking } from "../../services/groups/trackService.ts";
 import type { TrackTaskOutput } from "../../services/groups/trackTask.ts";
+import { compareWork, planWork, trackWork } from "../../services/jobWork.ts";
 import { defineRoute } from "../route.ts";
+import { submitJob } from "../submitJob.ts";
 
 export const groupRoutes = [
   defineRoute({
@@ -15,9 +17,9 @@ export const groupRoutes = [
     summary: "Start comparing groups: summaries with bootstrap CIs, Welch and permutation tests, Hedges' g, Holm-adjusted p (a background job)",
     body: CompareRequest,
     status: 202,
-    handler({ db, jobs, body }) {
-      const prepared = prepareComparison(db, body);
-      return jobs.submit("compare", prepared.task, (output) => storeComparison(db, prepared, output as CompareResult));
+    handler(ctx) {
+      const prepared = prepareComparison(ctx.db, ctx.body);
+      return submitJob<CompareResult>(ctx, "compare", prepared.task, { profileIds: prepared.gathered.profileIds, work: compareWork(prepared), store: (output) => storeComparison(ctx.db, prepared, output) });
     },
   }),
   defineRoute({
@@ -27,9 +29,9 @@ export const groupRoutes = [
     summary: "Start tracking a metric over stage or age, a dosage series (λ from the boundary shift) or size scaling (a background job)",
     body: TrackRequest,
     status: 202,
-    handler({ db, jobs, body }) {
-      const prepared = prepareTracking(db, body);
-      return jobs.submit("track", prepared.task, (output) => storeTracking(db, prepared, output as TrackTaskOutput));
+    handler(ctx) {
+      const prepared = prepareTracking(ctx.db, ctx.body);
+      return submitJob<TrackTaskOutput>(ctx, "track", prepared.task, { profileIds: prepared.gathered.profileIds, work: trackWork(prepared), store: (output) => storeTracking(ctx.db, prepared, output) });
     },
   }),
   defineRoute({
@@ -39,9 +41,9 @@ export const groupRoutes = [
     summary: "Start a sample-size plan: embryos per group to detect a relative change, with simulated power (a background job)",
     body: PlanRequest,
     status: 202,
-    handler({ db, jobs, body }) {
-      const prepared = preparePlan(db, body);
-      return jobs.submit("plan", prepared.options, (output) => storePlan(db, prepared, output as SamplePlan));
+    handler(ctx) {
+      const prepared = preparePlan(ctx.db, ctx.body);
+      return submitJob<SamplePlan>(ctx, "plan", prepared.options, { profileIds: prepared.gathered?.profileIds ?? [], work: planWork(prepared), store: (output) => storePlan(ctx.db, prepared, output) });
     },
   }),
 ];

@@ -1,6 +1,10 @@
 import { z } from "zod";
 import { deleteImport, listImports } from "../../../db/imports.ts";
 import { ImportOptions } from "../../import/importOptions.ts";
+import type { SourceFile } from "../../import/parseProfileFile.ts";
+import type { ParsedImport } from "../../import/records.ts";
+import type { ServerLimits } from "../../serverLimits.ts";
+import type { ParseOutcome } from "../../services/uploadWorker.ts";
 import { refuseDemoImport } from "../../services/datasets/refuseDemoImport.ts";
 import { importFiles } from "../../services/importFiles.ts";
 import { previewImports } from "../../services/imports/previewImports.ts";
@@ -8,7 +12,7 @@ import { CONFLICT_CHOICES } from "../../services/imports/resolveImport.ts";
 import { sortSourceFiles } from "../../services/imports/sortSourceFiles.ts";
 import { UserError } from "../../userError.ts";
 import { requestValidationError } from "../httpError.ts";
-import { readMultipart } from "../readMultipart.ts";
+import { joinChunks, readMultipart, type UploadedFile } from "../readMultipart.ts";
 import { defineRoute, IdParams } from "../route.ts";
 
 /** Form fields of an upload: the import options, as text. */
@@ -33,9 +37,9 @@ const UPLOAD_FIELDS = {
   ...Object.fromEntries(Object.keys(UploadFields.shape).map((k) => [k, "import option, as in the command line"])),
 };
 
-async function readUpload(req: Parameters<typeof readMultipart>[0]) {
+async function readUpload(req: Parameters<typeof readMultipart>[0], limits: ServerLimits) {
   const defaults = ImportOptions.parse({});
-  const body = await readMultipart(req, { maxFileBytes: defaults.maxBytes, maxFiles: 50 });
+  const body = await readMultipart(req, { maxFileBytes: defaults.maxBytes, maxFiles: 50, maxTotalBytes: limits.maxUploadMb * 1024 * 1024 });
   const empty = Object.fromEntries(Object.entries(body.fields).filter(([, v]) => v !== ""));
   const fields = UploadFields.safeParse(empty);
   if (!fields.success) throw requestValidationError(fields.error, "body");
@@ -43,8 +47,49 @@ async function readUpload(req: Parameters<typeof readMultipart>[0]) {
   const options = ImportOptions.parse(importOptions);
   const given = body.files.files ?? [];
   if (given.length === 0) throw new UserError("no-files", 'No file was uploaded: send at least one file in the "files" field.', { status: 400 });
-  const { profiles: files, meta, notes } = sortSourceFiles(given, body.files.meta?.[0], options);
+  const { profiles: files, meta, notes } = sortWithoutReading(given, body.files.meta?.[0], options);
   return { files, meta, options, onConflict, notes };
+}
+
+/** Bytes of a file's beginning to sort it by: more than the sniffer ever reads, so the answer is the same as for the whole file. */
+const SORT_PREFIX_BYTES = 1024 * 1024;
+
+/**
+ * Tell side files from profile files by the beginning of each upload only, so
+ * that a huge upload is never joined into one buffer on the request thread;
+ * the whole file is read in the worker thread.
+ */
+function sortWithoutReading(given: SourceFile[], meta: SourceFile | undefined, options: Parameters<typeof sortSourceFiles>[2]) {
+  const original = new Map<SourceFile, SourceFile>();
+  const stand = (f: SourceFile): SourceFile => {
+    const chunks = (f as Partial<UploadedFile>).chunks;
+    const proxy = { name: f.name, bytes: chunks ? joinChunks(prefixChunks(chunks, SORT_PREFIX_BYTES)) : f.bytes };
+    original.set(proxy, f);
+    return proxy;
+  };
+  const sorted = sortSourceFiles(given.map(stand), meta ? stand(meta) : undefined, options);
+  return { profiles: sorted.profiles.map((p) => original.get(p)!), meta: sorted.meta ? original.get(sorted.meta) : undefined, notes: sorted.notes };
+}
+
+function prefixChunks(chunks: Uint8Array[], bytes: number): Uint8Array[] {
+  const out: Uint8Array[] = [];
+  let n = 0;
+  for (const c of chunks) {
+    if (n >= bytes) break;
+    out.push(c);
+    n += c.length;
+  }
+  return out;
+}
+
+/** The worker thread's outcome for each file, as a parse function: the parsed import, or its refusal thrown. */
+function parsedBy(files: SourceFile[], outcomes: ParseOutcome[]): (file: SourceFile) => ParsedImport {
+  return (file) => {
+    const o = outcomes[files.indexOf(file)];
+    if (o.ok) return o.parsed;
+    if (o.error) throw new UserError(o.error.code, o.error.message, { status: o.error.status, issues: o.error.issues });
+    throw new Error(`reading ${file.name} failed: ${o.internal}`);
+  };
 }
 
 export const importRoutes = [
@@ -58,10 +103,10 @@ export const importRoutes = [
       "and how the file compares with the open database: embryos already stored, what would be added (a new channel, values they lack), conflicts with stored values, " +
       "and an earlier import of the same bytes. Refused while the demo data set is open.",
     multipart: { fields: UPLOAD_FIELDS },
-    async handler({ req, db }) {
-      const { files, meta, options, onConflict, notes } = await readUpload(req);
+    async handler({ req, db, limits, uploads }) {
+      const { files, meta, options, onConflict, notes } = await readUpload(req, limits);
       refuseDemoImport(db, "page");
-      return { files: previewImports(db, files, options, meta, onConflict), notes };
+      return { files: previewImports(db, files, options, meta, onConflict, parsedBy(files, await uploads.read(files, options, meta))), notes };
     },
   }),
   defineRoute({
@@ -70,10 +115,10 @@ export const importRoutes = [
     tag: "imports",
     summary: "Import uploaded profile files (each file all-or-nothing; values that differ from stored embryos are refused unless onConflict says keep or replace)",
     multipart: { fields: UPLOAD_FIELDS },
-    async handler({ req, res, db }) {
-      const { files, meta, options, onConflict, notes } = await readUpload(req);
+    async handler({ req, res, db, limits, uploads }) {
+      const { files, meta, options, onConflict, notes } = await readUpload(req, limits);
       refuseDemoImport(db, "page");
-      const reports = importFiles(db, files, options, meta, onConflict);
+      const reports = importFiles(db, files, options, meta, onConflict, parsedBy(files, await uploads.read(files, options, meta)));
       res.status(reports.every((r) => r.status === "rejected") ? 422 : 200);
       return { files: reports, notes };
     },

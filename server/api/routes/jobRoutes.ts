@@ -1,5 +1,7 @@
 import { z } from "zod";
-import { defineRoute } from "../route.ts";
+import { storedJobRequest } from "../../../db/jobs.ts";
+import { UserError } from "../../userError.ts";
+import { defineRoute, type RouteDefinition } from "../route.ts";
 
 const JobParams = z.object({ id: z.string().uuid() });
 
@@ -56,11 +58,33 @@ export const jobRoutes = [
   }),
   defineRoute({
     method: "post",
+    path: "/api/jobs/:id/rerun",
+    tag: "jobs",
+    summary: "Start a job again from the request that started it (e.g. one interrupted by a restart), on the data as stored now",
+    params: JobParams,
+    status: 202,
+    async handler(ctx) {
+      const stored = storedJobRequest(ctx.db, ctx.params.id);
+      if (!stored) throw new UserError("unknown-job", `No job with id ${ctx.params.id} in the open data set.`, { status: 404 });
+      const request = stored.request;
+      if (!request) throw new UserError("cannot-rerun", `Job ${ctx.params.id} (${stored.kind}) kept no request to start it from; start the analysis again from its page.`, { status: 409 });
+      // Imported here, not at the top: the list of all routes includes this one.
+      const { ALL_ROUTES } = await import("./allRoutes.ts");
+      const route = ALL_ROUTES.find((r: RouteDefinition) => r.method === "post" && r.path === request.path);
+      if (!route || !route.body) throw new UserError("cannot-rerun", `Job ${ctx.params.id} was started by ${request.path}, which cannot be re-run.`, { status: 409 });
+      const parsed = route.body.safeParse(request.body ?? {});
+      if (!parsed.success) throw new UserError("cannot-rerun", `The request of job ${ctx.params.id} is no longer valid: ${parsed.error.issues[0]?.message}. Start the analysis again from its page.`, { status: 409 });
+      const fakeReq = Object.create(ctx.req, { path: { value: request.path }, body: { value: request.body } });
+      return route.handler({ ...ctx, req: fakeReq, body: parsed.data, params: {}, query: {} });
+    },
+  }),
+  defineRoute({
+    method: "post",
     path: "/api/jobs/self-test",
     tag: "jobs",
     summary: "Start a short job that only counts, to check that background jobs work",
     body: z.object({ n: z.number().int().min(1).max(1000).default(5), delayMs: z.number().int().min(0).max(1000).default(20) }),
     status: 202,
-    handler: ({ jobs, body }) => jobs.submit("self-test", body, (out) => out),
+    handler: ({ jobs, body, req }) => jobs.submit("self-test", body, (out) => out, { request: { path: req.path, body: req.body } }),
   }),
 ];

@@ -22,7 +22,7 @@ const BUILDERS: { [K in ResponseKind]: (a: NonNullable<ReturnType<typeof getAnal
   plan: planResponse,
 };
 
-const ARTICLE: Record<AnalysisKind, string> = { "global-fit": "a global fit", precision: "a precision analysis", comparison: "a comparison", tracking: "a tracking analysis", plan: "a sample-size plan" };
+const ARTICLE: Record<AnalysisKind, string> = { "global-fit": "a global fit", precision: "a precision analysis", comparison: "a comparison", tracking: "a tracking analysis", plan: "a sample-size plan", dynamics: "a build-up fit", frap: "a FRAP analysis", combine: "a FRAP–gradient combination", simulation: "a simulation" };
 
 /**
  * The answer the job gave for stored analysis `id`, rebuilt by the same

@@ -4,7 +4,7 @@ import { basename, dirname, join, resolve } from "node:path";
 import { openDatabase, type Db } from "../../../db/connection.ts";
 import { countImports, getDatasetKind, setDatasetKind, type DatasetKind } from "../../../db/datasetKind.ts";
 import { UserError } from "../../userError.ts";
-import { loadDemoData } from "../demoData.ts";
+import { loadDemoData, loadDynamicsDemo } from "../demoData.ts";
 
 /** One database the server can open: the demo, the lab's own file, or another data set of the lab's. */
 export interface DataSetEntry {
@@ -116,7 +116,7 @@ export class DataSets {
     if (o.backupPath) this.config.log?.(`${path}: database upgraded to schema ${o.migrated.at(-1)}; the previous file was kept as ${o.backupPath}`);
     if (path === this.config.demoPath) {
       if (countImports(o.db) === 0) {
-        const reports = loadDemoData(o.db);
+        const reports = [...loadDemoData(o.db), ...loadDynamicsDemo(o.db)];
         this.config.log?.(`${o.created ? "created" : "filled"} ${path} with the invented demo data (${reports.filter((r) => r.status === "imported").length} files)`);
       } else if (getDatasetKind(o.db) !== "demo") {
         o.db.close();

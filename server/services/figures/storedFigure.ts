@@ -3,6 +3,7 @@ import { FIGURE_REGISTRY, type FigureKind } from "../../../client/figures/figure
 import type { IntensityScale } from "../../../client/figures/profileFitFigure.ts";
 import type { FigureConfig } from "../../../client/figures/scatterConfig.ts";
 import type { Db } from "../../../db/connection.ts";
+import { getAnalysis } from "../../../db/analyses.ts";
 import { profileFitFigure } from "../../../client/figures/profileFitFigure.ts";
 import { residualFigure } from "../../../client/figures/residualFigure.ts";
 import { groupValuesFigure } from "../../../client/figures/groupValuesFigure.ts";
@@ -68,6 +69,18 @@ export function storedFigure(db: Db, request: FigureRequest): BuiltFigure {
     case "plan": {
       const p = analysisResponse(db, id, "plan", use);
       return { config: powerFigure(p), baseName: name(`${p.metric}${p.group ? `_${p.group}` : ""}`) };
+    }
+    case "dynamics":
+    case "frap":
+    case "simulation": {
+      const a = getAnalysis(db, id);
+      if (!a) throw new UserError("not-found", `No stored analysis has id ${id}.`, { status: 404 });
+      if (a.kind !== entry.source && !(kind === "accumulation-time" && a.kind === "combine")) throw new UserError("wrong-source", `Analysis ${id} is a ${a.kind} analysis; ${use} needs a ${entry.source} analysis.`, { status: 400, issues: [{ path: "query.analysis", message: `expected ${entry.source}, got ${a.kind}` }] });
+      const input = { ...(a.result as object), analysis_id: id };
+      const builder = entry.builder as (i: unknown) => FigureConfig;
+      const g = input as unknown as { genotype?: string; channel?: string };
+      const label = a.kind === "dynamics" ? `${g.genotype}_${g.channel}` : a.kind;
+      return { config: builder(input), baseName: name(label) };
     }
   }
 }

@@ -21,6 +21,12 @@ export const FitRequest = z.object({
   global: z.boolean().default(false),
   /** An independently measured D (e.g. FRAP) in µm²/s with its standard error, for k, half-life, flux and τ(x). */
   diffusion: z.object({ valueUm2PerS: z.number().positive(), seUm2PerS: z.number().min(0).nullable().default(null) }).optional(),
+  /**
+   * Also fit every other model to each profile's window and report, per
+   * genotype × channel group, which model AICc prefers (model_preference),
+   * with a warning when it is not the fitted one; true by default.
+   */
+  checkModels: z.boolean().default(true),
   /** Positions (µm) at which to report the local accumulation time τ(x) when D is given. */
   accumulationPositionsUm: z.array(z.number().min(0)).max(50).default([]),
 });

@@ -4,6 +4,8 @@ import { loadProfiles } from "../../../db/profiles.ts";
 import { steadyStateCaveat } from "../../analysis/derived.ts";
 import type { FitInterpretation } from "../../analysis/derived.ts";
 import type { FitResult } from "../../analysis/fit/fitProfile.ts";
+import { describeErrorModel } from "../../analysis/fit/describeErrorModel.ts";
+import { FitOptions } from "../../analysis/fit/fitOptions.ts";
 import { UserError } from "../../userError.ts";
 
 /** What a stored fit keeps in its result column (see storeFitOutput). */
@@ -25,8 +27,17 @@ export function fitResponse(db: Db, id: number) {
     ...fit,
     result: fit.result as StoredFitResult,
     profile: profile ? { ...profile, positionsUm: Array.from(profile.positionsUm), positionsRaw: Array.from(profile.positionsRaw), intensities: Array.from(profile.intensities) } : null,
+    errorModel: storedErrorModel(fit.result as StoredFitResult),
     caveat: steadyStateCaveat,
   };
 }
 
 export type FitResponse = ReturnType<typeof fitResponse>;
+
+/** The error model of a stored fit; fits stored before error models were chosen used unweighted or their stated weights with s²(JᵀJ)⁻¹. */
+function storedErrorModel(result: StoredFitResult) {
+  const options = result.fit.options as Partial<ReturnType<typeof FitOptions.parse>>;
+  if (options.errorModel !== undefined) return describeErrorModel(result.fit.options);
+  const weights = options.weights ?? "none";
+  return { ...describeErrorModel({ ...FitOptions.parse({}), weights, errorModel: "classic" }), description: `classic s²(JᵀJ)⁻¹ covariance, ${weights === "none" ? "unweighted" : `${weights} weights`} (stored before the error model was reported)` };
+}

@@ -3,13 +3,15 @@ import { akaikeWeights } from "../../analysis/fit/akaikeWeights.ts";
 
 /**
  * Akaike weights across the models stored for each profile, counting only fits
- * over the same window (AICc compares models on the same data). A fit alone in
+ * over the same points (the window actually fitted) (AICc compares models on the same data). A fit alone in
  * its profile-and-window gets no weight.
  */
 export function weightStoredFits(items: FitListItem[]): (FitListItem & { akaikeWeight: number | null })[] {
   const groups = new Map<string, FitListItem[]>();
   for (const f of items) {
-    const key = `${f.profileId}|${JSON.stringify(f.window ?? {})}`;
+    // The points actually fitted when recorded (a detected source plateau moves the start), else the requested window.
+    const points = f.fittedWindow ? [f.fittedWindow.fromUm, f.fittedWindow.toUm] : (f.window ?? {});
+    const key = `${f.profileId}|${JSON.stringify(points)}`;
     groups.set(key, [...(groups.get(key) ?? []), f]);
   }
   const weight = new Map<number, number>();

@@ -42,10 +42,17 @@ export type PreviewFile =
  * file compares with the open database (embryos already stored, what would be
  * added, conflicts), and what the chosen conflict handling would store.
  */
-export function previewImports(db: Db, files: SourceFile[], options: ResolvedImportOptions, meta: SourceFile | undefined, onConflict: ConflictChoice): PreviewFile[] {
+export function previewImports(
+  db: Db,
+  files: SourceFile[],
+  options: ResolvedImportOptions,
+  meta: SourceFile | undefined,
+  onConflict: ConflictChoice,
+  parse: (file: SourceFile, options: ResolvedImportOptions, meta?: SourceFile) => ReturnType<typeof parseForImport> = parseForImport,
+): PreviewFile[] {
   return files.map((f): PreviewFile => {
     try {
-      const p = parseForImport(f, options, meta);
+      const p = parse(f, options, meta);
       const settings = importSettings(options, meta);
       const plan = planImport(db, p, settings);
       let status: "ok" | "conflicts" | "already-imported" = "ok";

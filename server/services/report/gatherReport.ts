@@ -1,3 +1,4 @@
+import type { ModelPreference } from "../../analysis/fit/modelPreference.ts";
 import { getAnalysis, listAnalyses, type StoredAnalysis } from "../../../db/analyses.ts";
 import { findFitSetting } from "../../../db/fitSettings.ts";
 import { assignMissingFitSettings } from "../fits/fitSettings.ts";
@@ -39,6 +40,8 @@ export interface GlobalFitEntry extends Provenance {
   model: string;
   fit: GlobalFitResult;
   summary: DecayLengthSummary;
+  /** Which model AICc preferred over the group's profiles when the global fit was run (absent in older analyses). */
+  modelPreference: ModelPreference | null;
 }
 
 export interface GroupReport {
@@ -100,8 +103,8 @@ function newestGlobals(db: Db, genotype: string, channel: string): GlobalFitEntr
     if (sel.genotype !== genotype || sel.channel !== channel || seen.has(model)) continue;
     seen.add(model);
     const full = getAnalysis(db, a.id)!;
-    const r = full.result as { fit: GlobalFitResult; summary: DecayLengthSummary };
-    out.push({ ...provenance(full), genotype, channel, model, fit: r.fit, summary: r.summary });
+    const r = full.result as { fit: GlobalFitResult; summary: DecayLengthSummary; modelPreference?: ModelPreference | null };
+    out.push({ ...provenance(full), genotype, channel, model, fit: r.fit, summary: r.summary, modelPreference: r.modelPreference ?? null });
   }
   return out;
 }

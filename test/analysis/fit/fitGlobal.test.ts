@@ -96,7 +96,7 @@ result = {"popt": popt, "perr": np.sqrt(np.diag(pcov))}
 `,
       profiles,
     );
-    const fit = expectFitted(fitGlobal(profiles, FitOptions.parse({})));
+    const fit = expectFitted(fitGlobal(profiles, FitOptions.parse({ weights: "none", errorModel: "classic" })));
     expect(relativeDifference(fit.shared.lambdaUm.value, ref.popt[0])).toBeLessThan(1e-6);
     expect(relativeDifference(fit.shared.lambdaUm.se!, ref.perr[0])).toBeLessThan(1e-3);
     fit.profiles.forEach((p, k) => {

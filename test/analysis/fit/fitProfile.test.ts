@@ -78,7 +78,8 @@ describe("fitProfile results", () => {
   const random = createRandom(20240611);
   const x = positions(0, 300, 120);
   const y = simulateProfile("exponential", x, [48], 90, 11, { noiseSd: 2, random });
-  const fit = expectFitted(fitProfile(x, y, FitOptions.parse({})));
+  // Unweighted, classic covariance: the textbook definitions checked below.
+  const fit = expectFitted(fitProfile(x, y, FitOptions.parse({ weights: "none", errorModel: "classic" })));
 
   it("fitted + residuals reproduce the data, and rss is their sum of squares", () => {
     // Source: definitions of residual and RSS.
@@ -114,11 +115,16 @@ describe("fitProfile results", () => {
     }
   });
 
-  it("95% intervals are value ± t(0.975, n − p)·se", () => {
-    // Source: t quantile t(0.975, 117) = 1.980448 (scipy.stats.t.ppf, value from memory to 6 digits).
-    const { value, se, ci95 } = fit.parameters.lambdaUm;
-    expect((ci95![1] - value) / se!).toBeCloseTo(1.980448, 5);
-    expect((value - ci95![0]) / se!).toBeCloseTo(1.980448, 5);
+  it("95% intervals are value ± t(0.975, n − p)·se, on the log scale for λ (value·exp(±t·se/value))", () => {
+    // Source: t quantile t(0.975, 117) = 1.980448 (scipy.stats.t.ppf, value from memory to 6 digits);
+    // log-scale interval with SE(log λ) = se/λ by the delta method (science.md §8, bounded parameters).
+    const { value, se, ci95, ciScale } = fit.parameters.lambdaUm;
+    expect(ciScale).toBe("log");
+    expect((Math.log(ci95![1] / value) * value) / se!).toBeCloseTo(1.980448, 5);
+    expect((Math.log(value / ci95![0]) * value) / se!).toBeCloseTo(1.980448, 5);
+    const amplitude = fit.parameters.amplitude;
+    expect((amplitude.ci95![1] - amplitude.value) / amplitude.se!).toBeCloseTo(1.980448, 5);
+    expect((amplitude.value - amplitude.ci95![0]) / amplitude.se!).toBeCloseTo(1.980448, 5);
   });
 
   it("reports D/k = λ² with the delta-method se 2λ·se(λ)", () => {

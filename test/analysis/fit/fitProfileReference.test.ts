@@ -63,7 +63,7 @@ for c in data:
 describe("fitProfile against scipy.optimize.curve_fit on the same data", () => {
   cases.forEach((c, k) => {
     it(`${c.name}${c.sigma ? " with inverse-variance weights" : ""}: λ to 1e-6 and every SE to 1e-3 relative`, () => {
-      const options = FitOptions.parse({ model: c.name, weights: c.sigma ? "inverse-variance" : "none" });
+      const options = FitOptions.parse({ model: c.name, weights: c.sigma ? "inverse-variance" : "none", errorModel: "classic" });
       const fit = expectFitted(fitProfile(c.x, c.y, options, { lengthUm: c.lengthUm, variance: c.sigma?.map((s) => s * s) }));
       expect(fit.status).toBe("converged");
       const scale = c.name === "power" ? "x0Um" : "lambdaUm";
@@ -101,14 +101,14 @@ for loss in ["soft_l1", "huber"]:
       { x, y, f: fScale },
     );
     for (const [loss, key] of [["soft-l1", "soft_l1"], ["huber", "huber"]] as const) {
-      const fit = expectFitted(fitProfile(x, y, FitOptions.parse({ robust: { loss, scale: fScale }, maxReweightings: 500 })));
+      const fit = expectFitted(fitProfile(x, y, FitOptions.parse({ weights: "none", robust: { loss, scale: fScale }, maxReweightings: 500 })));
       expect(fit.status).toBe("converged");
       expect(relativeDifference(fit.parameters.lambdaUm.value, ref[key][1])).toBeLessThan(1e-6);
       expect(relativeDifference(fit.parameters.amplitude.value, ref[key][0])).toBeLessThan(1e-6);
     }
     // The outliers pull an ordinary fit further from the truth than the robust one.
-    const plain = expectFitted(fitProfile(x, y, FitOptions.parse({})));
-    const robust = expectFitted(fitProfile(x, y, FitOptions.parse({ robust: { loss: "soft-l1" } })));
+    const plain = expectFitted(fitProfile(x, y, FitOptions.parse({ weights: "none" })));
+    const robust = expectFitted(fitProfile(x, y, FitOptions.parse({ weights: "none", robust: { loss: "soft-l1" } })));
     expect(Math.abs(robust.parameters.lambdaUm.value - 62)).toBeLessThan(Math.abs(plain.parameters.lambdaUm.value - 62));
   });
 });
@@ -131,7 +131,7 @@ describe("fitProfile against ml-levenberg-marquardt", () => {
       errorTolerance: 1e-12,
       damping: 1e-3,
     });
-    const fit = expectFitted(fitProfile(xs, y, FitOptions.parse({})));
+    const fit = expectFitted(fitProfile(xs, y, FitOptions.parse({ weights: "none" })));
     expect(relativeDifference(fit.parameters.lambdaUm.value, other.parameterValues[1])).toBeLessThan(1e-6);
     expect(relativeDifference(fit.rss, other.parameterError)).toBeLessThan(1e-9);
   });

@@ -2,10 +2,10 @@ import { spawnSync } from "node:child_process";
 import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
-import { fitGlobal } from "../../server/analysis/fit/fitGlobal.ts";
-import { FitOptions } from "../../server/analysis/fit/fitOptions.ts";
-import { fitProfile } from "../../server/analysis/fit/fitProfile.ts";
-import { createRandom } from "../../server/analysis/random/seededRandom.ts";
+import { fitGlobal } from "../server/analysis/fit/fitGlobal.ts";
+import { FitOptions } from "../server/analysis/fit/fitOptions.ts";
+import { fitProfile } from "../server/analysis/fit/fitProfile.ts";
+import { createRandom } from "../server/analysis/random/seededRandom.ts";
 
 /** Bench settings; the defaults are the reported configuration. */
 export interface FitBenchSettings {
@@ -13,9 +13,11 @@ export interface FitBenchSettings {
   points: number;
   globalEmbryos: number;
   seed: number;
+  /** Print nothing (the caller prints a summary). */
+  quiet: boolean;
 }
 
-const defaults: FitBenchSettings = { profiles: 1000, points: 500, globalEmbryos: 200, seed: 20240611 };
+const defaults: FitBenchSettings = { profiles: 1000, points: 500, globalEmbryos: 200, seed: 20240611, quiet: false };
 
 interface SyntheticProfile {
   x: number[];
@@ -152,6 +154,7 @@ export function runFitBench(settings: Partial<FitBenchSettings> = {}) {
     globalTrueLambdaUm: shared.lambdaUm,
   };
 
+  if (s.quiet) return result;
   const row = (label: string, value: string, target = "") => `  ${label.padEnd(46)} ${value.padStart(14)}  ${target}`;
   console.log(`\nSteady-state fit: ${s.profiles} seeded exponential profiles × ${s.points} points`);
   console.log(row("", "value", "target"));
