@@ -17,6 +17,7 @@ import { meanSlope, type MeanSlope } from "./meanSlope.ts";
 import { positionalErrorCurve, type MaskReason } from "./positionalError.ts";
 import { PrecisionOptions, type PrecisionOptionsInput, type PrecisionSettings } from "./precisionOptions.ts";
 import { effectiveSigma, regionSigma, sigmaOnRegion } from "./regionSigma.ts";
+import { levelEstimate, slopeLevels } from "./slopeLevels.ts";
 import { smallNoiseInformation } from "./smallNoiseInformation.ts";
 
 /** One channel (gene, gradient) measured in the same embryos as the others. */
@@ -195,7 +196,8 @@ export function analyseJointPrecision(channels: readonly Channel[], options: Pre
   const perChannel = names.map((name, c) => {
     const sd = ensembleMoments(values[c]);
     const curve = positionalErrorCurve(grid.x, sd.sd, slopes[c].slope, slopes[c].slopeSe, settings.mask);
-    const own = regionSigma(sd.sd, slopes[c].slope, slopes[c].slopeSe, { minSlopeSnr: settings.mask.minSlopeSnr, embryos: n, slopeIsEstimated: true }, region, nodes);
+    const levels = slopeLevels(g, grid.spacing, values[c], { windowPoints: slopes[c].windowPoints, embryoSlopes: slopes[c].embryoSlopes }, slopes[c].polynomialOrder);
+    const own = regionSigma(sd.sd, levels.map((l) => levelEstimate(l)), null, { minSlopeSnr: settings.mask.minSlopeSnr, embryos: n }, region, nodes);
     const finite = (v: number) => (Number.isFinite(v) ? v : null);
     return {
       name,

@@ -21,6 +21,7 @@ import { PrecisionOptions, type PrecisionOptionsInput, type PrecisionSettings } 
 import { sampleSizeExtrapolation, type SampleSizeExtrapolation } from "./sampleSizeExtrapolation.ts";
 import { scalingComparison, type ScalingComparison } from "./scalingComparison.ts";
 import { effectiveSigma, regionSigma } from "./regionSigma.ts";
+import { levelEstimate, slopeLevels } from "./slopeLevels.ts";
 import { sigmaAt } from "./sigmaSummaries.ts";
 import { smallNoiseInformation } from "./smallNoiseInformation.ts";
 
@@ -185,8 +186,9 @@ export function runPrecision(group: readonly Profile[], settings: PrecisionSetti
   const masked = curve.mask.map((r) => r !== null);
   const region = stateRegion(grid.x, grid.range, settings.region, settings.regionDefault);
   const nodes = regionNodes(grid.x, region);
-  const sigmaRule = { minSlopeSnr: settings.mask.minSlopeSnr, embryos: n, slopeIsEstimated: slope.method !== "model" };
-  const inRegion = regionSigma(moments.sd, slope.slope, slope.slopeSe, sigmaRule, region, nodes);
+  const sigmaRule = { minSlopeSnr: settings.mask.minSlopeSnr, embryos: n };
+  const levels = slopeLevels(grid.x.length, grid.spacing, values, { windowPoints: slope.windowPoints, embryoSlopes: slope.embryoSlopes }, slope.polynomialOrder);
+  const inRegion = regionSigma(moments.sd, levels.map((l) => levelEstimate(l)), slope.method === "model" ? slope.slope : null, sigmaRule, region, nodes);
   const modelDeviationRms = slope.modelValue ? modelDeviation(slope.modelValue, moments.mean, moments.sd, n) : null;
   noteSettings(warnings, settings, prepared, curve.mask, modelDeviationRms, n);
   noteRegion(warnings, region, inRegion);
@@ -203,7 +205,7 @@ export function runPrecision(group: readonly Profile[], settings: PrecisionSetti
       {
         gridX: grid.x,
         values,
-        embryoSlopes: slope.embryoSlopes,
+        levels,
         model: slope.method === "model" ? { refit: settings.derivative.refit ?? null, fixed: slope.slope } : null,
         mask: settings.mask,
         region,

@@ -1,13 +1,14 @@
 import type { Random } from "../random/seededRandom.ts";
 import { resampleIndices } from "../stats/bootstrap.ts";
 import { onNodes, type AnalysisRegion, type RegionNodes } from "./analysisRegion.ts";
-import { ensembleMoments, rowMean } from "./ensembleMoments.ts";
+import { ensembleMoments } from "./ensembleMoments.ts";
 import { gaussianInformation } from "./gaussianInformation.ts";
 import { kernelInformation } from "./kernelInformation.ts";
 import { positionalErrorCurve, type MaskRule } from "./positionalError.ts";
 import type { ProgressCallback } from "./precisionOptions.ts";
 import { effectiveSigma, regionSigma } from "./regionSigma.ts";
 import { sigmaAt } from "./sigmaSummaries.ts";
+import { levelEstimate, type SlopeLevel } from "./slopeLevels.ts";
 import { smallNoiseInformation } from "./smallNoiseInformation.ts";
 
 /** Everything one resample needs. Only the grid and the region are fixed; every quantity that depends on the data is recomputed. */
@@ -15,8 +16,8 @@ export interface BootstrapPlan {
   gridX: Float64Array;
   /** Profiles after normalisation, one per embryo. */
   values: readonly Float64Array[];
-  /** Per-embryo Savitzky–Golay slopes; the resampled mean slope is their mean, their spread the slope's SE. */
-  embryoSlopes: readonly Float64Array[];
+  /** Per-embryo Savitzky–Golay slopes at the base window (first) and wider ones; a resample's mean slope is their mean, their spread the slope's SE. */
+  levels: readonly SlopeLevel[];
   /** Model slope: refitted to each resample's mean (`refit`), or held fixed (`fixed`); null for the Savitzky–Golay slope. */
   model: { refit: ((gridX: number[], mean: number[]) => ArrayLike<number> | null) | null; fixed: Float64Array } | null;
   mask: MaskRule;
@@ -30,7 +31,7 @@ export interface BootstrapPlan {
   boundaryAt: number | null;
   hermiteNodes: number;
   kernelDensity: boolean;
-  /** Resamples that also compute the slow kernel-density estimate (the first ones). */
+  /** Resamples that also compute the slow estimates, raw direct and kernel-density information (the first ones). */
   slowResamples: number;
 }
 
@@ -66,7 +67,7 @@ export function bootstrapPrecision(plan: BootstrapPlan, resamples: number, rando
     boundarySd: new Float64Array(resamples),
     sigmaAtBoundary: new Float64Array(resamples),
     smallNoise: new Float64Array(resamples),
-    direct: new Float64Array(resamples),
+    direct: new Float64Array(Math.min(resamples, plan.slowResamples)),
     kernelDensity: new Float64Array(Math.min(resamples, plan.kernelDensity ? plan.slowResamples : 0)),
   };
   const last = plan.nodes.x.length - 1;
@@ -75,9 +76,9 @@ export function bootstrapPrecision(plan: BootstrapPlan, resamples: number, rando
   for (let b = 0; b < resamples; b++) {
     const idx = resampleIndices(n, random);
     const moments = ensembleMoments(plan.values, idx);
-    const slopeSpread = ensembleMoments(plan.embryoSlopes, idx).sd;
-    const slopeSe = Float64Array.from(slopeSpread, (s) => s / Math.sqrt(n));
-    let slope: ArrayLike<number> | null = rowMean(plan.embryoSlopes, idx);
+    const estimates = plan.levels.map((l) => levelEstimate(l, idx));
+    const slopeSe = estimates[0].slopeSe;
+    let slope: ArrayLike<number> | null = estimates[0].slope;
     if (plan.model) slope = plan.model.refit ? plan.model.refit(gridList, Array.from(moments.mean)) : plan.model.fixed;
     if (slope === null) {
       fillNaN(out, b);
@@ -85,10 +86,10 @@ export function bootstrapPrecision(plan: BootstrapPlan, resamples: number, rando
     }
     const curve = positionalErrorCurve(plan.gridX, moments.sd, slope, slopeSe, plan.mask);
     for (let k = 0; k < g; k++) out.sigmaX[k][b] = curve.sigmaX[k];
-    const sigma = regionSigma(moments.sd, slope, slopeSe, { minSlopeSnr: plan.mask.minSlopeSnr, embryos: n, slopeIsEstimated: plan.model === null }, plan.region, plan.nodes).sigma;
+    const sigma = regionSigma(moments.sd, estimates, plan.model ? slope : null, { minSlopeSnr: plan.mask.minSlopeSnr, embryos: n }, plan.region, plan.nodes).sigma;
     out.effectiveSigma[b] = effectiveSigma(plan.nodes.x, sigma);
     out.smallNoise[b] = smallNoiseInformation(plan.nodes.x, sigma, 0, last);
-    out.direct[b] = gaussianInformation(plan.nodes.x, onNodes(plan.nodes, moments.mean), onNodes(plan.nodes, moments.sd), 0, last, plan.hermiteNodes);
+    if (b < out.direct.length) out.direct[b] = gaussianInformation(plan.nodes.x, onNodes(plan.nodes, moments.mean), onNodes(plan.nodes, moments.sd), 0, last, plan.hermiteNodes);
     if (b < out.kernelDensity.length)
       out.kernelDensity[b] = kernelInformation(plan.nodes.x, plan.regionValues, 0, last, idx);
     plan.positions.forEach((x, p) => (out.atPositions[p][b] = sigmaAt(plan.gridX, curve.sigmaX, x)));
@@ -103,7 +104,8 @@ export function bootstrapPrecision(plan: BootstrapPlan, resamples: number, rando
 function fillNaN(out: BootstrapReplicates, b: number): void {
   for (const row of out.sigmaX) row[b] = NaN;
   for (const row of out.atPositions) row[b] = NaN;
-  out.effectiveSigma[b] = out.smallNoise[b] = out.direct[b] = out.boundarySd[b] = out.sigmaAtBoundary[b] = NaN;
+  out.effectiveSigma[b] = out.smallNoise[b] = out.boundarySd[b] = out.sigmaAtBoundary[b] = NaN;
+  if (b < out.direct.length) out.direct[b] = NaN;
   if (b < out.kernelDensity.length) out.kernelDensity[b] = NaN;
 }
 

@@ -121,7 +121,7 @@ export const PrecisionOptions = z.object({
       seed: z.int().default(1),
       /**
        * Resamples (the first ones, at most `resamples`) that also compute the slow estimates —
-       * kernel-density and multi-channel direct information; 200 by default.
+       * the raw direct, kernel-density and multi-channel direct information; 200 by default.
        */
       slowResamples: z.int().min(0).max(100000).default(200),
     })

@@ -15,13 +15,20 @@ export interface RegionSigma {
 
 const SQRT_2PI_E = Math.sqrt(2 * Math.PI * Math.E);
 
+/** Share of the region's positions the shared smoothing window must resolve. */
+const REGION_RESOLVED_SHARE = 0.9;
+
 export interface RegionSigmaRule {
   /** Slopes below this many standard errors count as unresolved (the mask rule). */
   minSlopeSnr: number;
   /** Number of embryos behind the SD. */
   embryos: number;
-  /** True when the slope is the mean of the embryos' own slopes (its noise biases ln σ_x); false for a model slope. */
-  slopeIsEstimated: boolean;
+}
+
+/** The mean slope and its standard error at one smoothing window (narrowest first). */
+export interface SlopeEstimate {
+  slope: ArrayLike<number>;
+  slopeSe: ArrayLike<number>;
 }
 
 /**
@@ -39,33 +46,49 @@ export function logSdBias(embryos: number): number {
 /**
  * σ_x = σ_c/|dc̄/dx| (Gregor, Tank, Wieschaus, Bialek 2007, Cell) over the region, never
  * leaving a hole in it:
- * - where the slope is below `minSlopeSnr` standard errors (the data cannot tell it from zero), or
- *   σ_x exceeds L/√(2πe), σ_x is set to L/√(2πe): a Gaussian of that SD is as uncertain as the
- *   uniform prior over the region (equal entropies), so the position adds no positional information
- *   — neither a negative contribution nor a spurious positive one from a slope that is mostly noise;
+ * - the slope comes from the narrowest smoothing window that resolves (at least `minSlopeSnr`
+ *   standard errors from zero) 90% of the region's positions, and at the remaining positions from
+ *   the next wider window that resolves them (see slopeLevels.ts); with a model, the model's slope,
+ *   provided some window resolves a slope there;
+ * - where no window resolves the slope, or σ_x exceeds L/√(2πe), σ_x is set to L/√(2πe): a Gaussian
+ *   of that SD is as uncertain as the uniform prior over the region (equal entropies), so the
+ *   position adds no positional information — neither a negative contribution nor a spurious
+ *   positive one from a slope that is mostly noise;
  * - where σ_c = 0 (e.g. a point pinned by min–max normalisation) σ_x is interpolated from the
  *   nearest usable neighbours, since σ_x = 0 would mean infinite information.
- * Each usable σ_x is first corrected for the small-sample bias of its logarithm, which is what
- * the information integral and the geometric-mean headline average (see logBias).
- * Then σ_x is interpolated linearly onto the region's nodes (its exact ends and the grid points inside).
+ * Each usable σ_x is corrected for the small-sample bias of its logarithm, which is what the
+ * information integral and the geometric-mean headline average (see logSdBias). Then σ_x is
+ * interpolated linearly onto the region's nodes (its exact ends and the grid points inside).
  */
 export function regionSigma(
   sd: ArrayLike<number>,
-  slope: ArrayLike<number>,
-  slopeSe: ArrayLike<number>,
+  levels: readonly SlopeEstimate[],
+  modelSlope: ArrayLike<number> | null,
   rule: RegionSigmaRule,
   region: AnalysisRegion,
   nodes: RegionNodes,
 ): RegionSigma {
-  const { minSlopeSnr } = rule;
   const sdFactor = Math.exp(-logSdBias(rule.embryos));
   const local = new Float64Array(sd.length).fill(NaN);
+  const resolvedAt = (level: SlopeEstimate, k: number) => Math.abs(level.slope[k]) > rule.minSlopeSnr * level.slopeSe[k] && level.slope[k] !== 0;
+  // One window for the whole region — the narrowest resolving 90% of it — so the choice hardly
+  // depends on any one position's noise (choosing per position would favour slopes that came out steep).
+  let first = levels.findIndex((level) => {
+    let resolved = 0;
+    for (let k = region.startIndex; k <= region.endIndex; k++) if (resolvedAt(level, k)) resolved++;
+    return resolved >= REGION_RESOLVED_SHARE * (region.endIndex - region.startIndex + 1);
+  });
+  if (first < 0) first = levels.length - 1;
   for (let k = 0; k < sd.length; k++) {
     if (!(sd[k] > 0)) continue;
-    const s = Math.abs(slope[k]);
-    const resolved = s > minSlopeSnr * slopeSe[k] && s > 0;
-    const slopeFactor = rule.slopeIsEstimated ? Math.exp(-0.5 * (slopeSe[k] / s) ** 2) : 1;
-    local[k] = resolved ? (sdFactor * sd[k] * slopeFactor) / s : Infinity;
+    local[k] = Infinity;
+    for (const level of levels.slice(first)) {
+      const s = Math.abs(level.slope[k]);
+      if (!resolvedAt(level, k)) continue;
+      if (modelSlope) local[k] = (sdFactor * sd[k]) / Math.abs(modelSlope[k]);
+      else local[k] = (sdFactor * sd[k] * Math.exp(-0.5 * (level.slopeSe[k] / s) ** 2)) / s;
+      break;
+    }
   }
   return sigmaOnRegion(local, region, nodes);
 }
