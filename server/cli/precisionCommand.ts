@@ -115,7 +115,8 @@ method}, positional_information_bits.small_noise and .direct_extrapolated {value
         const region = r.information_region;
         const sx = r.sigma_x_summary;
         io.stdout(`\n${r.group} / ${r.channel}: ${r.n_embryos} embryos, ${r.coords} coordinates, normalisation ${r.normalisation}; slope from ${r.derivative}\n`);
-        if (region) io.stdout(`  region ${significant(region.from)}–${significant(region.to)}${u} (${region.description})\n`);
+        const exact = (v: number) => String(Number(v.toPrecision(6)));
+        if (region) io.stdout(`  region ${exact(region.from)}–${exact(region.to)}${u} (${region.description})\n`);
         if (sx) io.stdout(`  σ_x over the region = ${significant(sx.value)}${u}${ci(sx.ci95)}${sx.fraction_of_length ? ` (${(sx.fraction_of_length.value * 100).toFixed(1)}% of length)` : ""}; geometric mean${sx.positions_without_information ? `, ${sx.positions_without_information} of ${sx.region_positions} positions without a resolved slope count as no information` : ""}\n`);
         if (b && b.sd !== null) io.stdout(`  boundary at threshold ${significant(b.threshold)} a.u.: mean position ${significant(b.mean_position ?? NaN)}, SD ${significant(b.sd)}${u}${ci(b.sd_ci95)}; σ_x there ${b.sigma_x_at_threshold ? significant(b.sigma_x_at_threshold.value) : "—"}\n`);
         io.stdout(`  positional information: ${bits(pi.direct_extrapolated)} (direct, extrapolated to infinitely many embryos), ${bits(pi.small_noise)} (small-noise)\n`);

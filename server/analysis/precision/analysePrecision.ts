@@ -228,7 +228,9 @@ export function runPrecision(group: readonly Profile[], settings: PrecisionSetti
   const estimateOf = (value: number, reps: ArrayLike<number> | null | undefined) => bootstrapEstimate(value, reps ?? null, use);
 
   const sigmaX = curve.sigmaX;
-  const sigmaXCi95 = Array.from(sigmaX, (v, k) => (Number.isFinite(v) && replicates ? estimateOf(v, replicates.sigmaX[k])?.ci95 ?? null : null));
+  // The band is drawn point by point; a resample that masks a point near the mask's threshold is
+  // simply left out there (not counted in the dropped-resample warning, which is about summaries).
+  const sigmaXCi95 = Array.from(sigmaX, (v, k) => (Number.isFinite(v) && replicates ? bootstrapEstimate(v, replicates.sigmaX[k])?.ci95 ?? null : null));
 
   const last = nodes.x.length - 1;
   const regionMean = onNodes(nodes, moments.mean);
