@@ -54,7 +54,7 @@ export function precisionResult(p: PrecisionSummary): HTMLElement {
     keyNumbers([
       {
         label: "Region for σ_x and positional information",
-        value: p.information_region ? `${lengthText(p, p.information_region.from)}–${lengthText(p, p.information_region.to)}` : "—",
+        value: p.information_region ? `${lengthText(p, p.information_region.from, 5)}–${lengthText(p, p.information_region.to, 5)}` : "—",
         note: p.information_region?.description,
         key: "information-region",
       },
