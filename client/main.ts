@@ -1,4 +1,6 @@
+import { DATA_SET_CHANGED, type DataSetChange } from "./api/dataSets.ts";
 import { destroyCharts } from "./components/chartPanel.ts";
+import { dataSetBar } from "./components/dataSetBar.ts";
 import { el } from "./components/el.ts";
 import { VIEWS, viewFromHash, type ViewId } from "./router.ts";
 import { renderDataView } from "./views/dataView.ts";
@@ -30,5 +32,13 @@ function show(): void {
   RENDER[id](app);
 }
 
+const dataSet = dataSetBar();
+document.getElementById("dataset")!.replaceChildren(dataSet.element);
+void dataSet.refresh();
+
 window.addEventListener("hashchange", show);
+// Another data set is open: every view redraws from it, except an import waiting for the switch (it asked for it).
+window.addEventListener(DATA_SET_CHANGED, (e) => {
+  if (!(e as CustomEvent<DataSetChange>).detail.keepView) show();
+});
 show();

@@ -19,6 +19,11 @@ export function defaultDatabasePath(env: NodeJS.ProcessEnv = process.env): strin
   return env.MORPHOGAUGE_DB && env.MORPHOGAUGE_DB.length > 0 ? env.MORPHOGAUGE_DB : "./morphogauge.db";
 }
 
+/** Where the invented demo data lives, apart from the lab's own: MORPHOGAUGE_DEMO_DB, else ./morphogauge-demo.db. */
+export function defaultDemoDatabasePath(env: NodeJS.ProcessEnv = process.env): string {
+  return env.MORPHOGAUGE_DEMO_DB && env.MORPHOGAUGE_DEMO_DB.length > 0 ? env.MORPHOGAUGE_DEMO_DB : "./morphogauge-demo.db";
+}
+
 /**
  * Open (creating if needed) a morphogauge database: WAL journal, foreign keys on,
  * migrations applied. An existing file that needs migrating is first copied to

@@ -37,13 +37,24 @@ export function applyMigrations(db: Database, migrations = loadMigrations()): nu
       `This database was written by a newer morphogauge (schema ${current}; this version knows up to ${newest}). Update morphogauge; the file was not changed.`,
     );
   }
-  for (const m of migrations) {
-    if (m.version <= current) continue;
-    db.transaction(() => {
-      db.exec(m.sql);
-      db.pragma(`user_version = ${m.version}`);
-    })();
-    applied.push(m.version);
+  // A migration may rebuild a table that others reference (create, copy, drop, rename), which
+  // needs foreign keys off while it runs; they are checked before each migration commits.
+  // Source: SQLite documentation, "Making Other Kinds Of Table Schema Changes" (ALTER TABLE).
+  const foreignKeys = db.pragma("foreign_keys", { simple: true }) as number;
+  db.pragma("foreign_keys = OFF");
+  try {
+    for (const m of migrations) {
+      if (m.version <= current) continue;
+      db.transaction(() => {
+        db.exec(m.sql);
+        const broken = db.pragma("foreign_key_check") as unknown[];
+        if (broken.length > 0) throw new Error(`migration ${m.name} leaves ${broken.length} broken references; the file was not changed`);
+        db.pragma(`user_version = ${m.version}`);
+      })();
+      applied.push(m.version);
+    }
+  } finally {
+    db.pragma(`foreign_keys = ${foreignKeys ? "ON" : "OFF"}`);
   }
   return applied;
 }

@@ -4,6 +4,9 @@
  * to the words the page uses for it; longer patterns come first.
  */
 const OPTION_WORDS: [RegExp, string][] = [
+  [/--on-conflict keep/g, "\u201cKeep the stored values\u201d"],
+  [/--on-conflict replace/g, "\u201cTake the file's values\u201d"],
+  [/--on-conflict refuse/g, "\u201cImport nothing while values differ\u201d"],
   [/--flip auto/g, "Flip \u201cauto\u201d"],
   [/--flip none/g, "Flip \u201cnone\u201d"],
   [/--pixel-size( in \u00b5m)?/g, "the \u201cPixel size (\u00b5m)\u201d field"],

@@ -1,16 +1,21 @@
 import express from "express";
 import type { Db } from "../../db/connection.ts";
 import { JobRunner } from "../jobs/jobRunner.ts";
+import type { DataSets } from "../services/datasets/dataSets.ts";
 import { apiReferencePage } from "./apiReferencePage.ts";
 import { errorHandler, notFoundHandler } from "./httpError.ts";
 import { mountRoutes } from "./mountRoutes.ts";
 import { openApiDocument } from "./openApiDocument.ts";
 import { ALL_ROUTES } from "./routes/allRoutes.ts";
+import { TOOL_VERSION } from "../version.ts";
 
-export const API_VERSION = "0.1.0";
+export const API_VERSION = TOOL_VERSION;
 
 export interface AppOptions {
-  db: Db;
+  /** The database, when the server has only one (tests); otherwise `datasets`. */
+  db?: Db;
+  /** The demo and the lab's data sets, switchable from the page; requests go to the open one. */
+  datasets?: DataSets;
   /** Runs long analyses in worker threads; one is made if not given. */
   jobs?: JobRunner;
   /** Folder with the built client (index.html, bundle); omitted in API-only tests. */
@@ -35,7 +40,10 @@ export function createApp(options: AppOptions): express.Express & { jobs: JobRun
   app.get("/api/docs", (_req, res) => {
     res.type("html").send(page);
   });
-  mountRoutes(app, ALL_ROUTES, { db: options.db, jobs });
+  const datasets = options.datasets ?? null;
+  const single = options.db;
+  if (!datasets && !single) throw new Error("createApp needs a database or data sets");
+  mountRoutes(app, ALL_ROUTES, { db: () => datasets?.db ?? single!, datasets, jobs });
   app.use("/api", notFoundHandler);
   if (options.clientDir) app.use(express.static(options.clientDir));
   app.use(errorHandler(options.log));

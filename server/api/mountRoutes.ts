@@ -1,11 +1,12 @@
 import type { Express, NextFunction, Request, Response } from "express";
 import type { Db } from "../../db/connection.ts";
 import type { JobRunner } from "../jobs/jobRunner.ts";
+import type { DataSets } from "../services/datasets/dataSets.ts";
 import { requestValidationError } from "./httpError.ts";
 import type { RouteDefinition } from "./route.ts";
 
 /** Attach each route with zod validation of params, query and body before its handler runs. */
-export function mountRoutes(app: Express, routes: RouteDefinition[], services: { db: Db; jobs: JobRunner }): void {
+export function mountRoutes(app: Express, routes: RouteDefinition[], services: { db: () => Db; datasets: DataSets | null; jobs: JobRunner }): void {
   for (const route of routes) {
     app[route.method](route.path, async (req: Request, res: Response, next: NextFunction) => {
       try {
@@ -18,7 +19,7 @@ export function mountRoutes(app: Express, routes: RouteDefinition[], services: {
         const params = parse(route.params, req.params, "params");
         const query = parse(route.query, req.query, "query");
         const body = route.multipart ? undefined : parse(route.body, req.body, "body");
-        const result = await route.handler({ query, body, params, db: services.db, jobs: services.jobs, req, res });
+        const result = await route.handler({ query, body, params, db: services.db(), datasets: services.datasets, jobs: services.jobs, req, res });
         if (result === undefined || res.headersSent) return;
         if (route.status && res.statusCode === 200) res.status(route.status);
         res.json(result);

@@ -2,13 +2,17 @@ import type { Request, Response } from "express";
 import { z } from "zod";
 import type { Db } from "../../db/connection.ts";
 import type { JobRunner } from "../jobs/jobRunner.ts";
+import type { DataSets } from "../services/datasets/dataSets.ts";
 
 /** What every handler receives: validated request parts and the app's services. */
 export interface RouteContext<Q, B, P> {
   query: Q;
   body: B;
   params: P;
+  /** The open data set's database. */
   db: Db;
+  /** The data sets the server can switch between; null when it was started on one database only. */
+  datasets: DataSets | null;
   jobs: JobRunner;
   req: Request;
   res: Response;

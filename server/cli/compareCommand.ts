@@ -18,10 +18,12 @@ export const compareCommand: Command = {
   summary: "compare groups (genotypes, stages, …): λ, amplitude, boundary or spread, with CIs and tests",
   help: `Usage: morphogauge compare [--by genotype|stage|channel|FIELD] [--reference G] [--metric M] [--permutations N] [options]
 
-Summarises each group (n, mean, SD, SEM, median, bootstrap 95% CI) and
-contrasts every pair of groups, or each group against --reference: difference
-and ratio with bootstrap CIs, Welch's t-test, a permutation test, Hedges' g,
-and Holm-adjusted p-values across the contrasts.
+Summarises each group (n, mean, SD, SEM, median, 95% t interval of the mean)
+and contrasts every pair of groups, or each group against --reference: the
+difference with Welch's t interval and the ratio with Fieller's interval (both
+agree with Welch's p and hold their level with 6–15 embryos per group),
+bootstrap intervals as a second opinion, a permutation test, Hedges' g, and
+Holm-adjusted p-values (of Welch's p) across the contrasts.
 
   --by FIELD            what defines the groups (default genotype; also stage, session,
                         dosage or any metadata column)
@@ -57,17 +59,18 @@ ${COMMON_HELP}`,
       io.stdout(`Groups by ${out.by}, channel ${out.channel}, metric ${out.metric}\n`);
       io.stdout(
         formatTable(
-          ["group", "n", "mean", "SD", "SEM", "median", "95% CI of mean"],
+          ["group", "n", "mean", "SD", "SEM", "median", "95% CI of mean (t)", "bootstrap 95% CI (2nd opinion)"],
           out.groups.map((g) => {
-            const s = (g as unknown as Record<string, { mean: number; sd: number | null; sem: number | null; median: number; ci95: [number, number] | null } | null>)[key];
-            return [g.name, String(g.n), s ? significant(s.mean) : "—", s?.sd != null ? significant(s.sd) : "—", s?.sem != null ? significant(s.sem) : "—", s ? significant(s.median) : "—", ci(s?.ci95)];
+            const s = (g as unknown as Record<string, { mean: number; sd: number | null; sem: number | null; median: number; ci95: [number, number] | null; bootstrap_ci95?: [number, number] | null } | null>)[key];
+            return [g.name, String(g.n), s ? significant(s.mean) : "—", s?.sd != null ? significant(s.sd) : "—", s?.sem != null ? significant(s.sem) : "—", s ? significant(s.median) : "—", ci(s?.ci95), ci(s?.bootstrap_ci95)];
           }),
         ),
       );
       io.stdout("\n");
+      const means = out.metric !== "sigma_x";
       io.stdout(
         formatTable(
-          ["a − b", "difference [95% CI]", "ratio [95% CI]", "p (Welch)", "p (permutation)", "p (Holm)", "Hedges' g"],
+          ["a − b", means ? "difference [95% CI, Welch t]" : "difference [95% CI]", means ? "ratio [95% CI, Fieller]" : "ratio [95% CI]", "p (Welch)", "p (permutation)", "p (Holm)", "Hedges' g"],
           out.contrasts.map((c) => [
             `${c.a} − ${c.b}`,
             c.difference ? `${significant(c.difference.value)} ${ci(c.difference.ci95)}` : "—",
@@ -79,6 +82,19 @@ ${COMMON_HELP}`,
           ]),
         ),
       );
+      if (means && out.contrasts.some((c) => c.difference?.bootstrap_ci95 || c.ratio?.bootstrap_ci95)) {
+        io.stdout("\nSecond opinion, not the headline: bootstrap intervals (they under-cover with few embryos per group)\n");
+        io.stdout(
+          formatTable(
+            ["a − b", "difference, bootstrap 95% CI", "ratio, bootstrap 95% CI"],
+            out.contrasts.map((c) => [`${c.a} − ${c.b}`, ci(c.difference?.bootstrap_ci95) || "—", ci(c.ratio?.bootstrap_ci95) || "—"]),
+          ),
+        );
+        const method = out.contrasts.find((c) => c.difference?.bootstrap_method)?.difference?.bootstrap_method;
+        if (method) io.stdout(`(${method})\n`);
+      }
+      if (means) io.stdout("Intervals: group means — t interval; differences — Welch's t interval; ratios — Fieller's interval with Welch's df. An interval excludes 0 (difference) or 1 (ratio) exactly when p (Welch) < 0.05.\n");
+      for (const c of out.contrasts) if (c.note) io.stdout(`note (${c.a} − ${c.b}): ${c.note}\n`);
       for (const w of out.warnings) io.stdout(`! ${w}\n`);
       return 0;
     } finally {

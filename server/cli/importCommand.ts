@@ -2,7 +2,10 @@ import { readFileSync, statSync } from "node:fs";
 import { basename, resolve } from "node:path";
 import { ImportOptions } from "../import/importOptions.ts";
 import type { SourceFile } from "../import/parseProfileFile.ts";
+import { refuseDemoImport } from "../services/datasets/refuseDemoImport.ts";
 import { importFiles } from "../services/importFiles.ts";
+import { CONFLICT_CHOICES, type ConflictChoice } from "../services/imports/resolveImport.ts";
+import { sortSourceFiles } from "../services/imports/sortSourceFiles.ts";
 import { UserError } from "../userError.ts";
 import { numberOption } from "./cliNumbers.ts";
 import { COMMON_HELP, COMMON_OPTIONS, type Command } from "./command.ts";
@@ -13,12 +16,24 @@ export const importCommand: Command = {
   name: "import",
   summary: "import profile exports (CSV/TSV, long or wide) into the database",
   allowPositionals: true,
-  help: `Usage: morphogauge import FILE... [options]
+  help: `Usage: morphogauge import FILE... [SIDEFILE] [options]
 
-Imports each file in one transaction: all of it or nothing. Importing the
-same bytes again adds nothing. Shapes (detected from the header):
+Imports each file in one transaction: all of it or nothing. Shapes (detected from the header):
   long   one row per point: embryo, position, intensity [, genotype, channel, age, length, time…]
   wide   first column position, then one column per embryo (header = label)
+A file with one row per embryo and no position column is the side file of the
+others (the same as --meta).
+
+Each file is compared with the database first. Embryos already stored under
+the same label are the same embryos (a new channel joins them; values they
+lack are filled in). Where the file gives a value other than the stored one
+(length, genotype, stage…) or another profile for the same channel:
+  --on-conflict refuse   import nothing and list the conflicts (default)
+  --on-conflict keep     keep the stored values; the file's are listed, not applied
+  --on-conflict replace  take the file's values (deleting the import puts the stored ones back)
+  --label-prefix P       or import the file's embryos as new ones, labelled P + label
+The same bytes with the same options and side file add nothing; with other
+options (another channel, prefix or a corrected side file) they are a new import.
 
   --meta FILE            side file with one row per embryo (genotype, stage, age, length, dosage…)
   --genotype G           genotype of embryos the files do not assign one
@@ -49,6 +64,7 @@ ${COMMON_HELP}`,
     decimal: { type: "string" },
     "max-bytes": { type: "string" },
     "max-embryos": { type: "string" },
+    "on-conflict": { type: "string" },
   },
   async run(values, positionals, io) {
     if (positionals.length === 0) throw new UserError("no-files", "name at least one file to import (morphogauge import FILE...)");
@@ -80,17 +96,22 @@ ${COMMON_HELP}`,
       if (size > parsed.data.maxBytes) throw new UserError("file-too-large", `${path}: the file is ${size} bytes, over the ${parsed.data.maxBytes}-byte limit (raise it with --max-bytes). Nothing was imported.`);
       return { name: basename(path), bytes: readFileSync(full) };
     };
-    const files = positionals.map(read);
-    const meta = values.meta === undefined ? undefined : read(values.meta as string);
+    const onConflict = (values["on-conflict"] ?? "refuse") as ConflictChoice;
+    if (!CONFLICT_CHOICES.includes(onConflict)) throw new UserError("bad-option", `--on-conflict: "${onConflict}" is not one of ${CONFLICT_CHOICES.join(", ")}`);
+    const given = positionals.map(read);
+    const sorted = sortSourceFiles(given, values.meta === undefined ? undefined : read(values.meta as string), parsed.data);
     const { db } = await openCliDatabase(values.db as string | undefined, io);
     try {
-      const reports = importFiles(db, files, parsed.data, meta);
-      if (values.json) io.stdout(JSON.stringify({ files: reports }, null, 2) + "\n");
+      refuseDemoImport(db, "cli", values.db === undefined ? io.env : {});
+      const reports = importFiles(db, sorted.profiles, parsed.data, sorted.meta, onConflict);
+      if (values.json) io.stdout(JSON.stringify({ files: reports, notes: sorted.notes }, null, 2) + "\n");
       else {
+        for (const n of sorted.notes) io.stdout(`· ${n}\n`);
         for (const r of reports) {
           if (r.status === "rejected") {
             io.stdout(`✗ ${r.file}: rejected\n  ${r.error.message}\n`);
-            for (const i of r.error.issues.slice(1)) io.stdout(`  - ${i.path}: ${i.message}\n`);
+            for (const i of r.error.issues.slice(1, 50)) io.stdout(`  - ${i.path}: ${i.message}\n`);
+            if (r.error.issues.length > 50) io.stdout(`  … and ${r.error.issues.length - 50} more\n`);
             continue;
           }
           io.stdout(`✓ ${r.file}: ${r.message}\n`);

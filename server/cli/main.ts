@@ -2,6 +2,7 @@ import { parseArgs } from "node:util";
 import { isUserError } from "../userError.ts";
 import type { Command, CommandIo } from "./command.ts";
 import { COMMANDS } from "./commands.ts";
+import { TOOL_VERSION } from "../version.ts";
 
 const USAGE = () => `morphogauge — measure morphogen gradients across replicate embryos
 
@@ -22,7 +23,7 @@ export async function runCli(argv: string[], io: CommandIo): Promise<number> {
     return name === undefined ? 2 : 0;
   }
   if (name === "--version") {
-    io.stdout(`${process.env.npm_package_version ?? "0.1.0"}\n`);
+    io.stdout(`${TOOL_VERSION}\n`);
     return 0;
   }
   const command: Command | undefined = COMMANDS.find((c) => c.name === name);

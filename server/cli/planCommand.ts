@@ -15,9 +15,9 @@ export const planCommand: Command = {
   summary: "embryos per group needed to detect a given change in λ (or in σ_x)",
   help: `Usage: morphogauge plan --effect 0.15 [--power 0.8] [--alpha 0.05] [--metric lambda|sigma_x] [--group G] [options]
 
-From the observed embryo-to-embryo variability of λ (in --group, or the largest
-group), the number of embryos per group needed to detect a relative change
---effect with the given power at two-sided level alpha: the normal-approximation
+From the observed embryo-to-embryo variability of λ (in --group, or by
+default the most variable selected group, which is conservative), the number
+of embryos per group needed to detect a relative change --effect with the given power at two-sided level alpha: the normal-approximation
 formula, the exact t-test size, and the power of Welch's t-test and of the
 permutation test simulated at each n.
 
@@ -25,7 +25,7 @@ permutation test simulated at each n.
   --power P             target power (default 0.8)
   --alpha A             significance level (default 0.05)
   --metric M            lambda (default) | sigma_x (a change in a spread)
-  --group G             group whose variability is used
+  --group G             group whose variability is used (default: the most variable)
 ${GROUP_HELP}
 ${COMMON_HELP}`,
   options: { ...COMMON_OPTIONS, ...GROUP_OPTIONS, effect: { type: "string" }, power: { type: "string" }, alpha: { type: "string" }, metric: { type: "string" }, group: { type: "string" } },
@@ -53,7 +53,9 @@ ${COMMON_HELP}`,
       io.stdout(
         `To detect a ${(out.settings.effect * 100).toFixed(0)}% change in ${out.metric === "lambda" ? "λ" : "spread"} with power ${out.settings.power} at α = ${out.settings.alpha}` +
           (out.cv !== null ? ` (embryo-to-embryo CV ${(out.cv * 100).toFixed(1)}%${out.group ? ` in ${out.group}` : ""})` : "") +
-          `: ${out.n_required} embryos per group (normal approximation ${out.n_normal}).\n\n`,
+          `: ${out.n_required} embryos per group (normal approximation ${out.n_normal}).\n` +
+          (out.variability_group ? `Used the ${out.variability_group.sentence}.\n` : "") +
+          "\n",
       );
       io.stdout(
         formatTable(

@@ -6,6 +6,7 @@ import { COMMON_HELP, COMMON_OPTIONS, type Command } from "./command.ts";
 import { openCliDatabase } from "./openCliDatabase.ts";
 import { progressReporter } from "./progressReporter.ts";
 import { zodToUserError } from "./zodToUserError.ts";
+import { TOOL_VERSION } from "../version.ts";
 
 const list = (v: string | undefined) => (v === undefined ? undefined : v.split(",").map((s) => s.trim()).filter(Boolean));
 
@@ -45,7 +46,7 @@ With --json: the list of files written.`,
     const { db, path } = await openCliDatabase(values.db as string | undefined, io);
     try {
       const progress = progressReporter(io, "report");
-      const manifest = writeReport(db, out, parsed.data, { database: path, generatedAt: new Date().toISOString(), toolVersion: io.env.npm_package_version ?? "0.1.0" }, progress.update);
+      const manifest = writeReport(db, out, parsed.data, { database: path, generatedAt: new Date().toISOString(), toolVersion: TOOL_VERSION }, progress.update);
       progress.done();
       if (values.json) {
         io.stdout(JSON.stringify(manifest, null, 2) + "\n");

@@ -1,3 +1,4 @@
+import type { DosageResult } from "../analysis/compare/tracking/dosageSeries.ts";
 import { TrackRequest } from "../services/groups/trackRequest.ts";
 import { prepareTracking, storeTracking } from "../services/groups/trackService.ts";
 import { runTrackTask } from "../services/groups/trackTask.ts";
@@ -44,13 +45,18 @@ ${COMMON_HELP}`,
       }
       const r = out.result as unknown as Record<string, unknown>;
       if (out.over === "dosage") {
-        const d = r as { lambda_from_shift_um: { value: number; ci95: [number, number] | null } | null; lambda_from_fit_um: { value: number; ci95: [number, number] | null } | null; agree: boolean | null; dosages: { dosage: number; n: number; boundary_um: { mean: number } | null }[]; assumptions: string[] };
+        const d = r as unknown as DosageResult;
         io.stdout(`Dosage series (${out.channel}), boundary threshold ${significant(out.boundary_threshold.value)} a.u.\n`);
-        for (const lv of d.dosages) io.stdout(`  dosage ${lv.dosage}×: n = ${lv.n}, mean boundary ${lv.boundary_um ? significant(lv.boundary_um.mean) : "—"} µm\n`);
-        io.stdout(`  λ from the boundary shift: ${d.lambda_from_shift_um ? significant(d.lambda_from_shift_um.value) : "—"} µm${ci(d.lambda_from_shift_um?.ci95)}\n`);
+        for (const lv of d.dosages) {
+          const missing = lv.no_crossing.before_start + lv.no_crossing.beyond_end;
+          io.stdout(`  dosage ${lv.dosage}×: ${lv.n_embryos} embryos, ${missing} never cross the threshold (${lv.no_crossing.before_start} start below it, ${lv.no_crossing.beyond_end} stay above it); mean boundary of the ${lv.n} that cross ${lv.boundary_um ? significant(lv.boundary_um.mean) : "—"} µm\n`);
+        }
+        io.stdout(`  λ from the boundary shift: ${d.lambda_from_shift_um ? `${significant(d.lambda_from_shift_um.value)} µm${ci(d.lambda_from_shift_um.ci95)}` : "not estimated"}\n`);
+        io.stdout(`  ${d.shift_refused ? `refused: ${d.shift_refused}` : `method: ${d.shift_method ?? "—"}`}\n`);
         io.stdout(`  λ from the profile fits:   ${d.lambda_from_fit_um ? significant(d.lambda_from_fit_um.value) : "—"} µm${ci(d.lambda_from_fit_um?.ci95)}\n`);
         io.stdout(`  ${d.agree === null ? "agreement could not be judged" : d.agree ? "the two estimates agree (CI of the difference contains 0)" : "the two estimates DISAGREE"}\n`);
         io.stdout(`  assumes: ${d.assumptions.join("; ")}\n`);
+        for (const w of d.warnings) if (w !== d.shift_refused) io.stdout(`! ${w}\n`);
       } else if (out.over === "length") {
         const s = r as unknown as ScalingResult;
         for (const g of s.groups) io.stdout(`${g.group}: n = ${g.n}; log–log slope of λ on length ${g.lambda ? significant(g.lambda.slope.value) + ci(g.lambda.slope.ci95) : "—"}; of boundary ${g.boundary ? significant(g.boundary.slope.value) + ci(g.boundary.slope.ci95) : "—"} (1 = perfect scaling)\n`);

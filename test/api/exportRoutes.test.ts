@@ -76,9 +76,9 @@ describe("GET /api/exports/:table.csv", () => {
     expect(groups.every((r) => r.unit === "µm")).toBe(true);
     expect(contrasts.map((r) => [r.group, r.versus])).toEqual(c.contrasts.map((k) => [k.a, k.b]));
     expect(contrasts.map((r) => num(r.p_holm))).toEqual(c.contrasts.map((k) => k.p_holm));
-    // Holm's step-down adjustment recomputed in numpy (Source: Holm 1979, Scand J Stat).
+    // Holm's step-down adjustment of Welch's p (the default family), recomputed in numpy (Source: Holm 1979, Scand J Stat).
     const holm = await runPython<number[]>(
-      "p = np.array([float(r['p_permutation']) for r in data]); o = np.argsort(p); m = len(p)\nadj = np.maximum.accumulate((m - np.arange(m)) * p[o]); adj = np.minimum(adj, 1)\nresult = np.empty(m); result[o] = adj\nresult = result.tolist()",
+      "p = np.array([float(r['p_welch']) for r in data]); o = np.argsort(p); m = len(p)\nadj = np.maximum.accumulate((m - np.arange(m)) * p[o]); adj = np.minimum(adj, 1)\nresult = np.empty(m); result[o] = adj\nresult = result.tolist()",
       contrasts,
     );
     holm.forEach((v, i) => expect(num(contrasts[i].p_holm)!).toBeCloseTo(v, 12));
@@ -87,7 +87,7 @@ describe("GET /api/exports/:table.csv", () => {
   it("tracking.csv of a dosage series lists each embryo's boundary, whose OLS slope on ln(dosage) is λ from the shift", async () => {
     const t = seeded.tracking;
     const rows = await readCsv((await csv(`/api/exports/tracking.csv?analysis=${t.analysis_id}`)).text);
-    expect(Object.keys(rows[0])).toEqual(["group", "embryo", "dosage", "ln_dosage", "boundary_um"]);
+    expect(Object.keys(rows[0])).toEqual(["group", "embryo", "dosage", "ln_dosage", "boundary_um", "no_crossing", "boundary_limit_um"]);
     expect(rows).toHaveLength((t.result as { n: number }).n);
     // Source: x_b = λ·ln(A·f/θ), so the slope of x_b on ln f is λ (Driever & Nüsslein-Volhard 1988, Cell); numpy.polyfit is the reference fit.
     const slope = await runPython<number>("x = np.log([float(r['dosage']) for r in data]); y = [float(r['boundary_um']) for r in data]\nresult = float(np.polyfit(x, y, 1)[0])", rows);

@@ -37,10 +37,31 @@ describe("import and profile API", () => {
     expect(r.status).toBe(200);
     const body = await r.json();
     expect(body.files.map((f: { status: string }) => f.status)).toEqual(["imported", "rejected"]);
-    const again = await (await fetch(`${s.url}/api/imports`, { method: "POST", body: uploadForm({ "good.csv": good }) })).json();
+    const again = await (await fetch(`${s.url}/api/imports`, { method: "POST", body: uploadForm({ "good.csv": good }, { channel: "glm" }) })).json();
     expect(again.files[0].status).toBe("already-imported");
+    expect(again.files[0].message).toContain("with the same options and side file");
     const onlyBad = await fetch(`${s.url}/api/imports`, { method: "POST", body: uploadForm({ "bad.csv": bad }) });
     expect(onlyBad.status).toBe(422);
+  });
+
+  it("POST /api/imports/preview compares with the database: a stored embryo with another length is a conflict until onConflict chooses", async () => {
+    const longer = "embryo,genotype,length [µm],channel,position [µm],intensity\n" + [0, 1, 2, 3, 4, 5].map((i) => `A1,wt,480,second,${i * 10},${60 - i * 5}`).join("\n") + "\n";
+    await fetch(`${s.url}/api/imports`, { method: "POST", body: uploadForm({ "len.csv": longer.replaceAll("480", "520").replaceAll("second", "first") }) });
+    const before = databaseSnapshot(s.db);
+    const refuse = (await (await fetch(`${s.url}/api/imports/preview`, { method: "POST", body: uploadForm({ "longer.csv": longer }) })).json()).files[0];
+    expect(refuse.status).toBe("conflicts");
+    expect(refuse.database.stored[0]).toMatchObject({ label: "A1", newProfiles: ["second"], conflicts: [{ name: "length (µm)", stored: 520, file: 480 }] });
+    const replace = (await (await fetch(`${s.url}/api/imports/preview`, { method: "POST", body: uploadForm({ "longer.csv": longer }, { onConflict: "replace" }) })).json()).files[0];
+    expect(replace.status).toBe("ok");
+    expect(replace.outcome.message).toContain("replaced the length (µm) of 1 embryo");
+    const stored = await fetch(`${s.url}/api/imports`, { method: "POST", body: uploadForm({ "longer.csv": longer }) });
+    expect(stored.status).toBe(422);
+    expect((await stored.json()).files[0].error.code).toBe("import-conflicts");
+    expect(databaseSnapshot(s.db)).toEqual(before);
+    const bad = await fetch(`${s.url}/api/imports/preview`, { method: "POST", body: uploadForm({ "longer.csv": longer }, { onConflict: "overwrite" }) });
+    expect(bad.status).toBe(400);
+    const imports = (await (await fetch(`${s.url}/api/imports`)).json()).imports;
+    expect((await fetch(`${s.url}/api/imports/${imports.at(-1).id}`, { method: "DELETE" })).status).toBe(200);
   });
 
   it("POST /api/imports joins a metadata side file and honours form options", async () => {
@@ -83,7 +104,7 @@ describe("import and profile API", () => {
     const imports = (await (await fetch(`${s.url}/api/imports`)).json()).imports;
     const last = imports.at(-1);
     const r = await (await fetch(`${s.url}/api/imports/${last.id}`, { method: "DELETE" })).json();
-    expect(r.deleted).toEqual({ profiles: 2, embryos: 2 });
+    expect(r.deleted).toEqual({ profiles: 2, embryos: 2, valuesRestored: 0 });
     expect((await (await fetch(`${s.url}/api/profiles`)).json()).total).toBe(1);
     expect((await fetch(`${s.url}/api/imports/${last.id}`, { method: "DELETE" })).status).toBe(404);
     expect((await fetch(`${s.url}/api/imports/abc`, { method: "DELETE" })).status).toBe(400);

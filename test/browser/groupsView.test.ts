@@ -15,7 +15,7 @@ interface Comparison {
 }
 interface Tracking {
   analysis_id: number;
-  result: { lambda_from_shift_um: { value: number; se: number }; agree: boolean };
+  result: { lambda_from_shift_um: { value: number; se: number }; agree: boolean; no_crossing: { before_start: number; beyond_end: number } };
 }
 interface Plan {
   analysis_id: number;
@@ -52,6 +52,10 @@ describe("Groups view in chromium", () => {
     const headers = await page.locator(".comparison-result table").nth(1).locator("thead th").allInnerTexts();
     const holmColumn = headers.indexOf("Holm p");
     expect(holmColumn).toBeGreaterThan(0);
+    // The table says which interval is the headline and which is the second opinion (Welch 1947; Fieller 1954).
+    expect(headers[2]).toContain("Welch t");
+    expect(headers[3]).toContain("Fieller");
+    expect(headers.filter((h) => h.includes("second opinion"))).toHaveLength(2);
     for (const c of r.contrasts) {
       const cells = await page.locator(`.comparison-result tr[data-pair="${c.a}|${c.b}"] td`).allInnerTexts();
       expect(cells[0]).toBe(`${c.a} vs ${c.b}`);
@@ -80,6 +84,8 @@ describe("Groups view in chromium", () => {
     expect(Math.abs(shift.value - r.result.lambda_from_shift_um.value)).toBeLessThanOrEqual(shift.halfUnit + 1e-9);
     expect(Math.abs(se.value - r.result.lambda_from_shift_um.se)).toBeLessThanOrEqual(se.halfUnit + 1e-9);
     expect(await page.locator('.tracking-result [data-key="agree"] dd').innerText()).toMatch(r.result.agree ? /^yes/ : /^no/);
+    const uncrossed = r.result.no_crossing.before_start + r.result.no_crossing.beyond_end;
+    expect(await page.locator('.tracking-result [data-key="no-crossing"] dd').innerText()).toMatch(new RegExp(`^${uncrossed}\\b`));
     const png = await downloadFile(page, page.locator('.tracking-result .chart-panel[data-figure="trend"] [data-role=png]'));
     expect(png.bytes.subarray(0, 8).equals(PNG_SIGNATURE)).toBe(true);
   });

@@ -145,6 +145,16 @@ describe("analysis commands on the demo database", () => {
     expect(dose.ratio.ci95[0]).toBeLessThan(1.03);
     expect(dose.ratio.ci95[1]).toBeGreaterThan(0.97);
     for (const c of out.contrasts) expect(Object.keys(c)).toEqual(expect.arrayContaining(["a", "b", "difference", "ratio", "p_welch", "p_permutation", "p_holm", "effect_size"]));
+    // Source: Welch 1947 / Fieller 1954 — the headline intervals say how they were formed; the bootstrap rides along.
+    expect(tardy.difference.interval_method).toMatch(/Welch t/);
+    expect(tardy.ratio.interval_method).toMatch(/Fieller/);
+    expect(tardy.ratio.bootstrap_ci95).toHaveLength(2);
+    expect(wt.lambda_um.ci_method).toMatch(/^t interval/);
+    const text = (await cli("compare", "--channel", "glm", "--fit-model", "finite", "--reference", "wt", "--genotype", "wt,tardy", "--permutations", "999")).stdout;
+    expect(text).toContain("difference [95% CI, Welch t]");
+    expect(text).toContain("ratio [95% CI, Fieller]");
+    expect(text).toContain("95% CI of mean (t)");
+    expect(text).toContain("Second opinion, not the headline: bootstrap intervals");
   });
 
   it("track --over dosage estimates λ from the boundary shift and finds it agrees with the fits", async () => {
@@ -155,6 +165,12 @@ describe("analysis commands on the demo database", () => {
     expect(shift.ci95[1]).toBeGreaterThan(WT_LAMBDA);
     expect(out.result.agree).toBe(true);
     expect(out.result.dosages.map((d: { dosage: number }) => d.dosage)).toEqual([0.5, 1, 2, 4]);
+    // Every embryo is accounted for: crossed plus never crossed, per dosage.
+    for (const d of out.result.dosages) expect(d.n + d.no_crossing.before_start + d.no_crossing.beyond_end).toBe(d.n_embryos);
+    expect(out.result.shift_method).toMatch(/least squares|censored-normal/);
+    const text = (await cli("track", "--over", "dosage", "--channel", "glm", "--fit-model", "finite", "--genotype", "glm-0.5x,wt,glm-2x,glm-4x")).stdout;
+    expect(text).toMatch(/dosage 0\.5×: \d+ embryos, \d+ never cross the threshold/);
+    expect(text).toContain("method: ");
   });
 
   it("track refuses a dosage series that mixes two dosage-1 genotypes", async () => {
@@ -177,6 +193,20 @@ describe("analysis commands on the demo database", () => {
     expect(out.n_normal).toBe(Math.ceil((2 * z * z * out.cv ** 2) / 0.15 ** 2));
     expect(out.n_required).toBeGreaterThanOrEqual(out.n_normal);
     expect(out.table.length).toBeGreaterThan(0);
+  });
+
+  it("plan without --group uses the most variable selected genotype and names it", async () => {
+    // common practice, no source: the conservative default plans for the group hardest to measure.
+    const out = await json("plan", "--effect", "0.15", "--channel", "glm", "--genotype", "wt,tardy");
+    const v = out.variability_group;
+    expect(v.rule).toBe("most_variable");
+    expect(v.candidates.map((c: { group: string }) => c.group).sort()).toEqual(["tardy", "wt"]);
+    expect(v.cv).toBe(Math.max(...v.candidates.map((c: { cv: number }) => c.cv)));
+    expect(out.cv).toBeCloseTo(v.cv, 12);
+    expect(out.group).toBe(v.group);
+    const text = (await cli("plan", "--effect", "0.15", "--channel", "glm", "--genotype", "wt,tardy")).stdout;
+    expect(text).toContain(`Used the variability from "${v.group}"`);
+    expect(text).toContain("most variable");
   });
 
   it("analysis commands name a wrong genotype or channel plainly", async () => {

@@ -1,9 +1,11 @@
-import { mkdtempSync, writeFileSync } from "node:fs";
+import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { spawnSync } from "node:child_process";
 import { describe, expect, it } from "vitest";
+import { API_VERSION } from "../../server/api/createApp.ts";
 import { COMMANDS } from "../../server/cli/commands.ts";
+import { ENGINE_VERSION } from "../../server/version.ts";
 import { runCliInProcess } from "../helpers/runCliInProcess.ts";
 
 // Command-line conventions: --help everywhere, --json alone on stdout, non-zero exit on error (common practice, no source).
@@ -20,10 +22,10 @@ describe("morphogauge command line", () => {
     });
   }
 
-  it("morphogauge demo then list --json gives the demo embryos, on the database named by MORPHOGAUGE_DB", async () => {
+  it("morphogauge demo fills the demo's own database (MORPHOGAUGE_DEMO_DB), and list --json on it gives the demo embryos", async () => {
     const dir = tmp();
-    const env = { MORPHOGAUGE_DB: join(dir, "env.db") };
-    const demo = await runCliInProcess(["demo", "--json"], env, dir);
+    const env = { MORPHOGAUGE_DEMO_DB: join(dir, "demo.db"), MORPHOGAUGE_DB: join(dir, "demo.db") };
+    const demo = await runCliInProcess(["demo", "--json"], { MORPHOGAUGE_DEMO_DB: env.MORPHOGAUGE_DEMO_DB }, dir);
     expect(demo.code).toBe(0);
     const out = JSON.parse(demo.stdout);
     expect(out.files.map((f: { status: string }) => f.status)).toEqual(["imported", "imported"]);
@@ -58,6 +60,15 @@ describe("morphogauge command line", () => {
     expect(badOpt.stderr).toContain('--pixel-size: "abc" is not a number');
     const unknown = await runCliInProcess(["import", "--frobnicate"], {}, dir);
     expect(unknown.code).toBe(2);
+  });
+
+  it("morphogauge --version prints package.json's version, the one the API reports", async () => {
+    // common practice, no source: one version string, read from the package manifest.
+    const manifest = JSON.parse(readFileSync("package.json", "utf8")) as { version: string };
+    const r = await runCliInProcess(["--version"]);
+    expect(r.stdout.trim()).toBe(manifest.version);
+    expect(API_VERSION).toBe(manifest.version);
+    expect(ENGINE_VERSION).toContain(manifest.version);
   });
 
   it("the installed morphogauge entry point runs as a separate process", () => {

@@ -73,7 +73,7 @@ describe("storing imports", () => {
     importFiles(db, [{ name: "b.csv", bytes: wide(["E1", "E2"], 5) }], opts({ channel: "vellin" }));
     const second = listImports(db)[1];
     expect(second).toMatchObject({ fileName: "b.csv", profiles: 2, embryos: 2 });
-    expect(deleteImport(db, second.id)).toEqual({ profiles: 2, embryos: 1 });
+    expect(deleteImport(db, second.id)).toEqual({ profiles: 2, embryos: 1, valuesRestored: 0 });
     expect(databaseSnapshot(db).counts).toEqual(afterFirst.counts);
     expect(deleteImport(db, 999)).toBeNull();
   });
@@ -86,7 +86,7 @@ describe("storing imports", () => {
     old.pragma("user_version = 0");
     old.close();
     const fresh = await openDatabase(path);
-    expect(fresh.migrated).toEqual([1]);
+    expect(fresh.migrated).toEqual(loadMigrations().map((m) => m.version));
     expect(fresh.db.pragma("journal_mode", { simple: true })).toBe("wal");
     expect(fresh.db.pragma("foreign_keys", { simple: true })).toBe(1);
     expect(fresh.db.prepare("SELECT v FROM keepme").get()).toEqual({ v: "precious" });
@@ -104,13 +104,15 @@ describe("storing imports", () => {
     const v1 = await openDatabase(path);
     importFiles(v1.db, [{ name: "a.csv", bytes: wide(["E1"]) }], opts());
     v1.db.close();
-    const next = [...loadMigrations(), { version: 2, name: "002_test.sql", sql: "ALTER TABLE embryos ADD COLUMN note TEXT;" }];
+    const current = loadMigrations().at(-1)!.version;
+    const version = current + 1;
+    const next = [...loadMigrations(), { version, name: `${String(version).padStart(3, "0")}_test.sql`, sql: "ALTER TABLE embryos ADD COLUMN note TEXT;" }];
     const v2 = await openDatabase(path, next);
-    expect(v2.migrated).toEqual([2]);
-    expect(v2.backupPath).toBe(`${path}.before-schema-2`);
+    expect(v2.migrated).toEqual([version]);
+    expect(v2.backupPath).toBe(`${path}.before-schema-${version}`);
     v2.db.close();
-    const copy = new Database(`${path}.before-schema-2`, { readonly: true });
-    expect(copy.pragma("user_version", { simple: true })).toBe(1);
+    const copy = new Database(`${path}.before-schema-${version}`, { readonly: true });
+    expect(copy.pragma("user_version", { simple: true })).toBe(current);
     expect(copy.prepare("SELECT COUNT(*) AS n FROM profiles").get()).toEqual({ n: 1 });
     copy.close();
   });

@@ -27,7 +27,8 @@ describe("README examples", () => {
 
   it("every README command line runs and exits 0", async () => {
     const dir = mkdtempSync(join(tmpdir(), "mg-readme-"));
-    const env = { MORPHOGAUGE_DB: join(dir, "readme.db") };
+    // The tour runs `demo` and then works on the demo database (README: export MORPHOGAUGE_DB=morphogauge-demo.db).
+    const env = { MORPHOGAUGE_DB: join(dir, "readme.db"), MORPHOGAUGE_DEMO_DB: join(dir, "readme.db") };
     for (const args of commands) {
       if (args[0] === "serve") continue;
       const fixed = args.map((a, i) => (args[i - 1] === "--db" && !isAbsolute(a) ? join(dir, a) : a));

@@ -3,6 +3,7 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { chromium, type Browser, type Page } from "playwright-core";
 import { buildClient } from "../../server/api/buildClient.ts";
+import type { DataSets } from "../../server/services/datasets/dataSets.ts";
 import { startTestServer, type TestServer } from "./testServer.ts";
 
 /** Debian's chromium; CI installs it with apt-get. The browser tests never download a browser. */
@@ -57,12 +58,12 @@ export interface BrowserSession {
  * the built client, and one headless chromium with a 1280×800 page on it.
  * Fails with a clear message when chromium is not installed: these tests do not skip.
  */
-export async function startBrowserSession(options: { demo?: boolean } = {}): Promise<BrowserSession> {
+export async function startBrowserSession(options: { demo?: boolean; datasets?: DataSets } = {}): Promise<BrowserSession> {
   if (!existsSync(CHROMIUM)) {
     throw new Error(`The browser tests need Debian's chromium at ${CHROMIUM}, which is missing. Install it with "apt-get install chromium"; these tests do not skip.`);
   }
   const clientDir = await builtClientCopy();
-  const server = await startTestServer({ demo: options.demo, clientDir });
+  const server = await startTestServer({ demo: options.demo, datasets: options.datasets, clientDir });
   const browser = await chromium.launch({ executablePath: CHROMIUM, headless: true, args: CHROMIUM_ARGS });
   const context = await browser.newContext({ viewport: { width: 1280, height: 800 }, acceptDownloads: true });
   const page = await context.newPage();

@@ -2,6 +2,7 @@ import type { AddressInfo } from "node:net";
 import type { Server } from "node:http";
 import { openDatabaseSync, type Db } from "../../db/connection.ts";
 import { createApp } from "../../server/api/createApp.ts";
+import type { DataSets } from "../../server/services/datasets/dataSets.ts";
 import { loadDemoData } from "../../server/services/demoData.ts";
 
 export interface TestServer {
@@ -11,12 +12,15 @@ export interface TestServer {
   close(): Promise<void>;
 }
 
-/** The app on an ephemeral port of 127.0.0.1 with an in-memory database (optionally holding the demo data). */
-export async function startTestServer(options: { demo?: boolean; clientDir?: string } = {}): Promise<TestServer> {
-  const db = openDatabaseSync(":memory:");
-  if (options.demo) loadDemoData(db);
+/**
+ * The app on an ephemeral port of 127.0.0.1 with an in-memory database (optionally holding the demo data),
+ * or with switchable data sets (`db` is then the one open at the start).
+ */
+export async function startTestServer(options: { demo?: boolean; clientDir?: string; datasets?: DataSets } = {}): Promise<TestServer> {
+  const db = options.datasets?.db ?? openDatabaseSync(":memory:");
+  if (options.demo && !options.datasets) loadDemoData(db);
   const logs: string[] = [];
-  const app = createApp({ db, clientDir: options.clientDir, log: (m) => logs.push(m) });
+  const app = createApp(options.datasets ? { datasets: options.datasets, clientDir: options.clientDir, log: (m) => logs.push(m) } : { db, clientDir: options.clientDir, log: (m) => logs.push(m) });
   const server: Server = await new Promise((resolve) => {
     const s = app.listen(0, "127.0.0.1", () => resolve(s));
   });
@@ -34,7 +38,8 @@ export async function startTestServer(options: { demo?: boolean; clientDir?: str
       const closed = new Promise((r) => server.close(r));
       server.closeAllConnections();
       await closed;
-      db.close();
+      if (options.datasets) options.datasets.close();
+      else db.close();
     },
   };
 }

@@ -20,4 +20,8 @@ export interface GroupSummary {
   median: number;
   cv: number;
   ci95: [number, number] | null;
+  /** How ci95 was formed (a t interval). */
+  ci_method?: string;
+  /** Bootstrap CI of the mean, a second opinion. */
+  bootstrap_ci95?: [number, number] | null;
 }

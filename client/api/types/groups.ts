@@ -1,9 +1,12 @@
 import type { Estimate, GroupSummary } from "./estimate.ts";
 
-/** A difference or ratio with its 95% CI. */
+/** A difference or ratio with its 95% CI, how that CI was formed, and a bootstrap CI as a second opinion. */
 export interface Interval {
   value: number;
   ci95: [number, number] | null;
+  interval_method?: string;
+  bootstrap_ci95?: [number, number] | null;
+  bootstrap_method?: string;
 }
 
 export interface ComparisonGroup {
@@ -84,7 +87,11 @@ export interface TimeTrack {
 
 export interface DosageTrack {
   n: number;
-  dosages: { dosage: number; n: number; boundary_um: GroupSummary | null }[];
+  /** Absent in results stored before uncrossed embryos were counted. */
+  no_crossing?: { before_start: number; beyond_end: number };
+  shift_method?: string | null;
+  shift_refused?: string | null;
+  dosages: { dosage: number; n: number; n_embryos?: number; no_crossing?: { before_start: number; beyond_end: number }; boundary_um: GroupSummary | null }[];
   lambda_from_shift_um: Estimate | null;
   boundary_at_unit_dosage_um: Estimate | null;
   lambda_from_fit_um: Estimate | null;
@@ -134,4 +141,6 @@ export interface PlanResult {
   table: { n: number; power_analytic: number; power_normal: number; power_simulated: number; power_permutation_simulated: number | null }[];
   formula: string;
   notes: string[];
+  /** Which group's variability was used and why (null for a spread plan). */
+  variability_group: { group: string; n: number; cv: number; rule: "chosen" | "most_variable"; candidates: { group: string; n: number; cv: number }[]; sentence: string } | null;
 }

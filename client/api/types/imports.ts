@@ -21,10 +21,44 @@ export interface PreviewEmbryo {
   profiles: { channel: string; timeS: number | null; points: number; positionUnit: string; flipped: boolean }[];
 }
 
+/** A stored embryo's value against the file's. */
+export interface FieldDifference {
+  field: string;
+  name: string;
+  stored: string | number | null;
+  file: string | number | null;
+}
+
+/** What a file would do to an embryo already stored under the same label. */
+export interface StoredEmbryoPlan {
+  label: string;
+  storedFrom: string;
+  additions: FieldDifference[];
+  conflicts: FieldDifference[];
+  newProfiles: string[];
+  unchangedProfiles: string[];
+  clashingProfiles: { profile: string; storedFrom: string }[];
+}
+
+/** The comparison of a file with the open data set. */
+export interface DatabaseComparison {
+  sameImport: { importId: number; fileName: string; differences: string[] } | null;
+  earlierImports: { importId: number; fileName: string; differences: string[] }[];
+  newEmbryos: string[];
+  stored: StoredEmbryoPlan[];
+  newProfiles: number;
+  unchangedProfiles: number;
+  conflicts: number;
+  additions: number;
+}
+
 export type PreviewFile =
   | {
       file: string;
-      status: "ok";
+      /** ok: ready to import; conflicts: a choice is needed; already-imported: importing would store nothing. */
+      status: "ok" | "conflicts" | "already-imported";
+      database: DatabaseComparison;
+      outcome: { message: string; issues: ApiIssue[] };
       format: string;
       delimiter: string;
       decimalMark: string;
@@ -38,17 +72,20 @@ export type PreviewFile =
 /** POST /api/imports/preview */
 export interface PreviewAnswer {
   files: PreviewFile[];
+  /** How a side file given among the profile files was recognised. */
+  notes?: string[];
 }
 
 export type ImportReport =
   | {
       file: string;
       status: "imported" | "already-imported";
-      importId: number;
+      importId: number | null;
       format: string;
       embryosAdded: number;
       embryosMatched: number;
       profilesAdded: number;
+      valuesChanged: number;
       embryos: string[];
       warnings: ImportWarning[];
       message: string;
@@ -58,6 +95,7 @@ export type ImportReport =
 /** POST /api/imports */
 export interface ImportAnswer {
   files: ImportReport[];
+  notes?: string[];
 }
 
 /** One entry of GET /api/imports */
@@ -70,5 +108,7 @@ export interface StoredImport {
   importedAt: string;
   embryos: number;
   profiles: number;
+  /** Values of embryos stored before this import that it filled in or replaced. */
+  valuesChanged: number;
   warnings: ImportWarning[];
 }

@@ -15,13 +15,16 @@ export function importList(onDeleted: () => void): { element: HTMLElement; refre
   const remove = async (imp: StoredImport) => {
     const ok = await confirmDialog(
       `Delete import #${imp.id}?`,
-      `This removes the ${imp.profiles} profiles that "${imp.fileName}" added, their fits, and embryos left with no profile. Other imports are not touched. This cannot be undone.`,
+      `This removes the ${imp.profiles} profiles that "${imp.fileName}" added, their fits, and embryos left with no profile` +
+        (imp.valuesChanged ? `, and puts back the ${imp.valuesChanged} values it changed on embryos stored before it` : "") +
+        ". Other imports are not touched. This cannot be undone.",
       "Delete import",
     );
     if (!ok) return;
     try {
-      const answer = await apiDelete<{ deleted: { profiles: number; embryos: number } }>(`api/imports/${imp.id}`);
-      replaceChildren(status, infoNotice(`Deleted import #${imp.id} ("${imp.fileName}"): ${answer.deleted.profiles} profiles and ${answer.deleted.embryos} embryos removed.`));
+      const answer = await apiDelete<{ deleted: { profiles: number; embryos: number; valuesRestored: number } }>(`api/imports/${imp.id}`);
+      const restored = answer.deleted.valuesRestored ? `; ${answer.deleted.valuesRestored} values of other embryos put back` : "";
+      replaceChildren(status, infoNotice(`Deleted import #${imp.id} ("${imp.fileName}"): ${answer.deleted.profiles} profiles and ${answer.deleted.embryos} embryos removed${restored}.`));
       onDeleted();
     } catch (e) {
       replaceChildren(status, errorNotice(e));
@@ -47,6 +50,7 @@ export function importList(onDeleted: () => void): { element: HTMLElement; refre
             { header: "Imported (UTC)", cell: (i) => i.importedAt.replace("T", " ").slice(0, 16) },
             { header: "Embryos", cell: (i) => i.embryos, numeric: true },
             { header: "Profiles", cell: (i) => i.profiles, numeric: true },
+            { header: "Values changed", cell: (i) => i.valuesChanged, numeric: true },
             { header: "Warnings", cell: (i) => (i.warnings.length ? el("span", { title: i.warnings.map((w) => w.message).join("\n") }, String(i.warnings.length)) : "0"), numeric: true },
             { header: "", cell: (i) => button("Delete", () => void remove(i), "danger", { "aria-label": `Delete import #${i.id} (${i.fileName})`, "data-role": "delete-import" }), csv: () => null },
           ],

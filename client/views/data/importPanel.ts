@@ -1,3 +1,4 @@
+import { createDataSet, getDataSets, switchDataSet } from "../../api/dataSets.ts";
 import { apiUpload } from "../../api/http.ts";
 import type { ImportAnswer, ImportReport, PreviewAnswer } from "../../api/types/imports.ts";
 import { dropZone } from "../../components/dropZone.ts";
@@ -6,6 +7,7 @@ import { button, select } from "../../components/formFields.ts";
 import { errorNotice, infoNotice } from "../../components/notice.ts";
 import { browserWording } from "../../format/browserWording.ts";
 import { formatSignificant } from "../../format/significant.ts";
+import { conflictChoice } from "./conflictChoice.ts";
 import { guessFileRole, type FileRole } from "./fileRole.ts";
 import { importOptionsForm } from "./importOptionsForm.ts";
 import { previewCard, warningList } from "./previewCard.ts";
@@ -17,8 +19,11 @@ interface Pending {
 
 /**
  * Add files: drop or pick them, set the import options, see what the importer
- * reads (nothing stored yet), then confirm. Calls `onImported` after an import
- * that stored something.
+ * reads and how it compares with the open data set (nothing stored yet), choose
+ * what to do with values that differ from stored embryos, then confirm. Files
+ * never go into the demo: while it is open, the panel asks which data set of
+ * your own to use. Calls `onImported` after an import that stored something,
+ * and after switching data sets.
  */
 export function importPanel(onImported: () => void): HTMLElement {
   let pending: Pending[] = [];
@@ -29,6 +34,7 @@ export function importPanel(onImported: () => void): HTMLElement {
   const previewArea = el("div", { class: "preview", "data-role": "preview", "aria-live": "polite" });
   const resultArea = el("div", { class: "import-result", "data-role": "import-result", "aria-live": "polite" });
   const options = importOptionsForm(() => void preview());
+  const choice = conflictChoice(() => void preview());
   const confirm = button("Import", () => void runImport(), "primary", { "data-role": "confirm-import" });
   const clear = button("Clear", () => {
     pending = [];
@@ -43,7 +49,7 @@ export function importPanel(onImported: () => void): HTMLElement {
     for (const p of pending.filter((x) => x.role === "profiles")) f.append("files", p.file, p.file.name);
     const meta = pending.find((x) => x.role === "meta");
     if (meta) f.append("meta", meta.file, meta.file.name);
-    for (const [k, v] of Object.entries(options.fields())) f.append(k, v);
+    for (const [k, v] of Object.entries({ ...options.fields(), ...choice.fields() })) f.append(k, v);
     return f;
   };
 
@@ -84,17 +90,25 @@ export function importPanel(onImported: () => void): HTMLElement {
     }
     replaceChildren(previewArea, el("p", { class: "muted" }, "Reading the files…"));
     try {
+      const sets = await getDataSets();
+      if (mine !== request) return;
+      if (sets.current.kind === "demo") {
+        replaceChildren(previewArea, chooseOwnDataSet(sets.available.filter((d) => d.kind === "user")));
+        return;
+      }
       const answer = await apiUpload<PreviewAnswer>("api/imports/preview", form());
       if (mine !== request) return;
       const ok = answer.files.filter((f) => f.status === "ok").length;
+      choice.show(answer.files.some((f) => f.status === "conflicts") || choice.chosen() !== "refuse");
       replaceChildren(
         previewArea,
-        el("h3", { class: "section-note" }, "Preview — nothing is stored until you press Import"),
+        el("h3", { class: "section-note" }, `Preview against ${sets.current.id} — nothing is stored until you press Import`),
+        ...(answer.notes ?? []).map((n) => infoNotice(n)),
         ...answer.files.map(previewCard),
       );
       previewed = ok > 0;
       confirm.disabled = !previewed;
-      confirm.textContent = ok === 1 ? "Import 1 file" : `Import ${ok} files`;
+      confirm.textContent = ok === 0 ? "Import" : ok === 1 ? "Import 1 file" : `Import ${ok} files`;
     } catch (e) {
       if (mine === request) replaceChildren(previewArea, errorNotice(e));
     }
@@ -120,6 +134,32 @@ export function importPanel(onImported: () => void): HTMLElement {
     }
   };
 
+  /** While the demo is open: the lab's data sets to import into, or a new one. */
+  const chooseOwnDataSet = (own: { id: string; exists: boolean }[]): HTMLElement => {
+    const after = async (switching: Promise<unknown>) => {
+      try {
+        await switching;
+        onImported();
+        await preview();
+      } catch (e) {
+        replaceChildren(previewArea, errorNotice(e));
+      }
+    };
+    const name = el("input", { type: "text", name: "dataSetName", placeholder: "e.g. spring-imaging", "aria-label": "Name of the new data set" });
+    return el(
+      "div",
+      { class: "notice notice-warning", "data-role": "demo-import-guard" },
+      el("p", {}, "The demo data set (invented) is open. Your files go into a data set of your own, never into the demo, so that your embryos and the demo's never share a group."),
+      el(
+        "div",
+        { class: "actions" },
+        ...own.map((d) => button(`Import into ${d.id}${d.exists ? "" : " (new file)"}`, () => void after(switchDataSet(d.id, true)), "primary", { "data-role": "use-own-dataset", "data-dataset": d.id })),
+        name,
+        button("Create a new data set", () => void after(createDataSet(name.value.trim(), true)), "secondary", { "data-role": "create-own-dataset" }),
+      ),
+    );
+  };
+
   const zone = dropZone((files) => {
     for (const file of files) {
       const role = guessFileRole(file.name);
@@ -138,6 +178,7 @@ export function importPanel(onImported: () => void): HTMLElement {
     fileList,
     options.element,
     previewArea,
+    choice.element,
     el("div", { class: "actions" }, confirm, clear),
     resultArea,
   );
@@ -151,7 +192,7 @@ function reportLine(r: ImportReport): HTMLElement {
     "div",
     { class: "report report-good", "data-status": r.status },
     el("strong", {}, r.file),
-    `: ${r.message}${r.status === "imported" ? ` (import #${r.importId})` : ""}.`,
+    `: ${browserWording(r.message)}${r.status === "imported" ? ` (import #${r.importId})` : ""}.`,
     warningList(r.warnings),
   );
 }

@@ -1,4 +1,4 @@
-import type { ImportWarning, PreviewFile } from "../../api/types/imports.ts";
+import type { DatabaseComparison, FieldDifference, ImportWarning, PreviewFile } from "../../api/types/imports.ts";
 import { el } from "../../components/el.ts";
 import { warningNotice } from "../../components/notice.ts";
 import { browserWording } from "../../format/browserWording.ts";
@@ -65,10 +65,19 @@ export function previewCard(p: PreviewFile): HTMLElement {
       ),
     ),
   );
+  const badge =
+    p.status === "ok"
+      ? el("span", { class: "badge badge-good" }, "ready to import")
+      : p.status === "already-imported"
+        ? el("span", { class: "badge badge-warn" }, "already imported")
+        : el("span", { class: "badge badge-bad" }, `${p.database.conflicts} conflict${p.database.conflicts === 1 ? "" : "s"} with stored embryos — choose below`);
   return el(
     "article",
-    { class: "preview-card", "data-file": p.file, "data-status": "ok" },
-    el("h3", {}, p.file, " ", el("span", { class: "badge badge-good" }, "ready to import")),
+    { class: "preview-card", "data-file": p.file, "data-status": p.status },
+    el("h3", {}, p.file, " ", badge),
+    el("p", { class: "outcome", "data-role": "outcome" }, browserWording(p.outcome.message)),
+    p.outcome.issues.length > 1 ? el("ul", { class: "issues" }, ...p.outcome.issues.slice(0, 50).map((i) => el("li", {}, browserWording(i.message)))) : null,
+    storedEmbryos(p.database),
     facts([
       ["Table shape", p.format],
       ["Separator", SEPARATOR_NAMES[p.delimiter] ?? p.delimiter],
@@ -88,5 +97,53 @@ export function previewCard(p: PreviewFile): HTMLElement {
       : null,
     el("details", {}, el("summary", {}, `Columns (${p.columns.length})`), el("div", { class: "table-scroll short" }, columns)),
     el("details", { open: p.embryos.length <= 12 }, el("summary", {}, `Embryos (${p.embryos.length})`), el("div", { class: "table-scroll short" }, embryos)),
+  );
+}
+
+function showValue(v: string | number | null): string {
+  return v === null ? "—" : typeof v === "number" ? formatPlain(v) : v;
+}
+
+function differences(list: FieldDifference[], arrow: boolean): string {
+  return list.map((d) => (arrow ? `${d.name}: ${showValue(d.stored)} stored, ${showValue(d.file)} in the file` : `${d.name} ${showValue(d.file)}`)).join("; ");
+}
+
+/** Embryos of the file that the open data set already holds: what the file would add to each, and where it differs. */
+function storedEmbryos(db: DatabaseComparison): HTMLElement | null {
+  if (db.stored.length === 0) return null;
+  const table = el(
+    "table",
+    { class: "data compact", "data-role": "stored-embryos" },
+    el("thead", {}, el("tr", {}, ...["Embryo", "Stored from", "Would add", "Differs from stored"].map((h) => el("th", { scope: "col" }, h)))),
+    el(
+      "tbody",
+      {},
+      ...db.stored.map((s) =>
+        el(
+          "tr",
+          { "data-embryo": s.label, class: s.conflicts.length || s.clashingProfiles.length ? "row-conflict" : "" },
+          el("td", {}, s.label),
+          el("td", {}, s.storedFrom),
+          el(
+            "td",
+            {},
+            [
+              s.newProfiles.length ? `channel ${s.newProfiles.join(", ")}` : "",
+              s.additions.length ? differences(s.additions, false) : "",
+              s.unchangedProfiles.length ? `(${s.unchangedProfiles.join(", ")} already stored unchanged)` : "",
+            ]
+              .filter(Boolean)
+              .join("; ") || "—",
+          ),
+          el("td", {}, [differences(s.conflicts, true), ...s.clashingProfiles.map((c) => `profile ${c.profile}: other values stored (from ${c.storedFrom})`)].filter(Boolean).join("; ") || "—"),
+        ),
+      ),
+    ),
+  );
+  return el(
+    "details",
+    { open: true },
+    el("summary", {}, `Already stored (${db.stored.length} of the file's embryos; ${db.newEmbryos.length} new)`),
+    el("div", { class: "table-scroll short" }, table),
   );
 }

@@ -50,11 +50,19 @@ function groupTable(r: ComparisonResult): HTMLElement {
         numeric: true,
       },
       {
-        header: `95% CI (${m.unit})`,
+        header: `95% CI, t (${m.unit})`,
         cell: (g) => {
           const { summary, spread } = summaryOf(g, r.metric);
           if (summary) return formatInterval(summary.ci95, placeOf(summary));
           return spread ? formatEstimateInterval(spread) : "—";
+        },
+        numeric: true,
+      },
+      {
+        header: `Bootstrap 95% CI, second opinion (${m.unit})`,
+        cell: (g) => {
+          const { summary } = summaryOf(g, r.metric);
+          return summary?.bootstrap_ci95 ? formatInterval(summary.bootstrap_ci95, placeOf(summary)) : "—";
         },
         numeric: true,
       },
@@ -69,8 +77,12 @@ function groupTable(r: ComparisonResult): HTMLElement {
 function contrastTable(r: ComparisonResult): HTMLElement {
   const m = METRICS[r.metric];
   const interval = (i: Contrast["difference"]) => (i ? `${formatSignificant(i.value, 3)} ${formatInterval(i.ci95, i.ci95 ? uncertaintyDecimals(Math.abs(i.ci95[1] - i.ci95[0]) / 4) : null)}` : "—");
+  const boot = (i: Contrast["difference"]) => (i?.bootstrap_ci95 ? formatInterval(i.bootstrap_ci95, uncertaintyDecimals(Math.abs(i.bootstrap_ci95[1] - i.bootstrap_ci95[0]) / 4)) : "—");
+  const means = r.metric !== "sigma_x";
   return dataTable<Contrast>({
-    caption: `Contrasts (${m.name}); intervals are 95% CIs, p-values two-sided, Holm-adjusted across the contrasts`,
+    caption: means
+      ? `Contrasts (${m.name}): difference with Welch's t interval, ratio with Fieller's interval (95%; both agree with Welch's p); bootstrap intervals shown as a second opinion; p-values two-sided, Holm-adjusted across the contrasts`
+      : `Contrasts (${m.name}): ratio and difference of spreads with bootstrap 95% CIs; p-values two-sided, Holm-adjusted across the contrasts`,
     rows: r.contrasts,
     csv: { href: csvExportUrl("comparison", { analysis: r.analysis_id }) },
     rowData: (c) => ({ pair: `${c.a}|${c.b}` }),
@@ -78,8 +90,14 @@ function contrastTable(r: ComparisonResult): HTMLElement {
     columns: [
       { header: "A vs B", cell: (c) => `${c.a} vs ${c.b}` },
       { header: "n A / n B", cell: (c) => `${c.n_a} / ${c.n_b}`, numeric: true },
-      { header: `Difference A − B (${m.unit}) [95% CI]`, cell: (c) => interval(c.difference), numeric: true },
-      { header: "Ratio A / B [95% CI]", cell: (c) => interval(c.ratio), numeric: true },
+      { header: `Difference A − B (${m.unit}) [95% CI${means ? ", Welch t" : ""}]`, cell: (c) => interval(c.difference), numeric: true },
+      { header: `Ratio A / B [95% CI${means ? ", Fieller" : ""}]`, cell: (c) => interval(c.ratio), numeric: true },
+      ...(means
+        ? [
+          { header: `Difference, bootstrap 95% CI (second opinion)`, cell: (c: Contrast) => boot(c.difference), numeric: true },
+          { header: "Ratio, bootstrap 95% CI (second opinion)", cell: (c: Contrast) => boot(c.ratio), numeric: true },
+        ]
+        : []),
       { header: "Welch p", cell: (c) => formatPValue(c.p_welch), numeric: true },
       { header: "Permutation p", cell: (c) => formatPValue(c.p_permutation), numeric: true },
       ...(r.contrasts.some((c) => c.p_spread !== null) ? [{ header: "Spread p", cell: (c: Contrast) => formatPValue(c.p_spread), numeric: true }] : []),

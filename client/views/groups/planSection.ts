@@ -26,7 +26,7 @@ export function planResult(r: PlanResult): HTMLElement {
     { class: "plan-result", "data-analysis-id": String(r.analysis_id) },
     keyNumbers([
       { label: "Embryos per group", value: `${r.n_required}${r.capped ? " or more (search capped)" : ""}`, note: `to detect a ${formatPercent(r.settings.effect, 0)} change in ${what} with power ${r.settings.power} at α = ${r.settings.alpha}`, key: "n-required" },
-      { label: "Embryo-to-embryo CV used", value: formatPercent(r.cv, 1), note: `from the embryos of ${r.group}` },
+      { label: "Embryo-to-embryo CV used", value: formatPercent(r.cv, 1), note: r.variability_group ? r.variability_group.sentence : `from the embryos of ${r.group}` },
       { label: "Standardised effect", value: formatSignificant(r.standardized_effect, 3), note: "change ÷ CV" },
       { label: "Normal approximation", value: `${r.n_normal} per group` },
     ]),
@@ -61,7 +61,7 @@ export function planSection(choices: Choices): HTMLElement {
     ["lambda", "mean λ"],
     ["sigma_x", "spread (σ_x or boundary SD)"],
   ], s.metric);
-  const group = select("group", [["", "the largest group"], ...choices.genotypes.map((g): [string, string] => [g, g])], s.group);
+  const group = select("group", [["", "the most variable group"], ...choices.genotypes.map((g): [string, string] => [g, g])], s.group);
   const progress = el("div", { "data-role": "plan-progress" });
   const out = el("div", { "data-role": "plan-result" });
 

@@ -58,7 +58,10 @@ function dosage(r: TrackingResult, d: DosageTrack): HTMLElement {
     "div",
     { class: "dosage" },
     keyNumbers([
-      { label: "λ from the boundary shift (µm)", value: formatEstimate(d.lambda_from_shift_um, "µm", { ci: true }), note: "slope of boundary against ln(dosage)", key: "lambda-shift" },
+      { label: "λ from the boundary shift (µm)", value: d.lambda_from_shift_um ? formatEstimate(d.lambda_from_shift_um, "µm", { ci: true }) : "not estimated", note: d.shift_refused ?? d.shift_method ?? "slope of boundary against ln(dosage)", key: "lambda-shift" },
+      ...(d.no_crossing
+        ? [{ label: "Embryos that never cross the threshold", value: String(d.no_crossing.before_start + d.no_crossing.beyond_end), note: `${d.no_crossing.before_start} start below it, ${d.no_crossing.beyond_end} never fall below it; kept as censored values, not dropped`, key: "no-crossing" }]
+        : []),
       { label: "λ from the profile fits (µm)", value: formatEstimate(d.lambda_from_fit_um, "µm", { ci: true }), key: "lambda-fit" },
       { label: "Difference, shift − fits (µm)", value: formatEstimate(d.difference_um, "µm", { ci: true }) },
       { label: "Do they agree?", value: agree === null || agree === undefined ? "cannot tell" : agree ? "yes: the 95% CI of the difference includes 0" : "no: the 95% CI of the difference excludes 0", key: "agree" },
@@ -66,12 +69,14 @@ function dosage(r: TrackingResult, d: DosageTrack): HTMLElement {
     ...d.warnings.map((w) => warningNotice(w)),
     infoNotice(el("strong", {}, "The shift equals λ·ln(dosage) only if: "), d.assumptions.join("; "), "."),
     dataTable({
-      caption: "Boundary position per dosage (µm)",
+      caption: "Boundary position per dosage (µm); means and t intervals of the embryos that crossed",
       rows: d.dosages,
       csv: { fileName: `tracking-${r.analysis_id}-dosages.csv` },
       columns: [
         { header: "Dosage (× wild type)", cell: (x) => formatSignificant(x.dosage, 3), numeric: true },
-        { header: "n", cell: (x) => x.n, numeric: true },
+        { header: "Embryos", cell: (x) => x.n_embryos ?? x.n, numeric: true },
+        { header: "Crossed", cell: (x) => x.n, numeric: true },
+        { header: "Never crossed (start below / stay above)", cell: (x) => (x.no_crossing ? `${x.no_crossing.before_start} / ${x.no_crossing.beyond_end}` : "—"), numeric: true },
         { header: "Mean ± SEM (µm)", cell: (x) => meanSem(x.boundary_um), numeric: true },
         { header: "95% CI (µm)", cell: (x) => ci(x.boundary_um), numeric: true },
         { header: "SD (µm)", cell: (x) => formatSignificant(x.boundary_um?.sd ?? null, 3), numeric: true },

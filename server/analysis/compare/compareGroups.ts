@@ -176,7 +176,7 @@ function contrast(ga: Group, gb: Group, o: ResolvedCompareOptions): Contrast {
     a, b, metric: o.metric, source: "embryos", n_a: xa.length, n_b: xb.length,
     difference: m.difference, ratio: m.ratio, t_welch: m.t_welch, df_welch: m.df_welch, p_welch: m.p_welch,
     p_permutation: m.p_permutation, p_spread: null, p_holm: null, effect_size: m.effect_size,
-    note: m.ratio === null ? `the mean ${o.metric} of "${b}" is 0; no ratio` : null,
+    note: m.note === null ? null : m.note.replace("the second group", `"${b}"`),
   };
 }
 

@@ -36,10 +36,14 @@ export const CompareOptions = z.object({
   permutations: z.number().int().min(99).max(1_000_000).default(10_000),
   /** Bootstrap resamples per interval; 2000 by default. */
   bootstrap: z.number().int().min(100).max(1_000_000).default(2000),
-  /** Bootstrap interval type: bias-corrected and accelerated, or plain percentile. */
+  /** Type of the bootstrap intervals kept as a second opinion beside the t-based headline: bias-corrected and accelerated, or plain percentile. */
   interval: z.enum(["bca", "percentile"]).default("bca"),
-  /** Which p-value of each mean contrast Holm's adjustment is applied to. */
-  holmOn: z.enum(["permutation", "welch"]).default("permutation"),
+  /**
+   * Which p-value of each mean contrast Holm's adjustment is applied to; Welch's
+   * by default, the test the headline intervals invert, so adjusted and
+   * unadjusted results tell one story.
+   */
+  holmOn: z.enum(["permutation", "welch"]).default("welch"),
   /** Seed of every bootstrap and permutation stream; recorded in the result. */
   seed: z.number().int().default(1),
   /** Confidence level of every interval, in (0.5, 1); 0.95 by default. */

@@ -22,6 +22,16 @@ export interface EmbryoRecord {
   background?: number;
   /** Boundary position (where the profile crosses a fixed threshold) in µm from the source. */
   boundaryUm?: number;
+  /**
+   * Set when the profile never crossed the threshold (then `boundaryUm` is
+   * absent): 'before_start' — it starts below the threshold, so the boundary
+   * lies before `boundaryLimitUm` (the first position); 'beyond_end' — it never
+   * falls below it, so the boundary lies beyond `boundaryLimitUm` (the last
+   * position). Such embryos are censored, not missing at random.
+   */
+  boundaryCensored?: "before_start" | "beyond_end";
+  /** The measured position the censored boundary lies before or beyond, in µm. */
+  boundaryLimitUm?: number;
   /** Embryo (or tissue) length in µm along the axis of the profile. */
   lengthUm?: number;
   /** Developmental stage: a number (e.g. cycle or somite count) or a label. */

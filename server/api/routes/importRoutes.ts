@@ -1,9 +1,12 @@
 import { z } from "zod";
 import { deleteImport, listImports } from "../../../db/imports.ts";
 import { ImportOptions } from "../../import/importOptions.ts";
-import { parseProfileFile } from "../../import/parseProfileFile.ts";
+import { refuseDemoImport } from "../../services/datasets/refuseDemoImport.ts";
 import { importFiles } from "../../services/importFiles.ts";
-import { isUserError, UserError } from "../../userError.ts";
+import { previewImports } from "../../services/imports/previewImports.ts";
+import { CONFLICT_CHOICES } from "../../services/imports/resolveImport.ts";
+import { sortSourceFiles } from "../../services/imports/sortSourceFiles.ts";
+import { UserError } from "../../userError.ts";
 import { requestValidationError } from "../httpError.ts";
 import { readMultipart } from "../readMultipart.ts";
 import { defineRoute, IdParams } from "../route.ts";
@@ -20,6 +23,8 @@ const UploadFields = z.object({
   channel: z.string().optional(),
   labelPrefix: z.string().optional(),
   flip: z.enum(["none", "auto"]).optional(),
+  /** What to do with values that differ from stored embryos: refuse (default), keep the stored ones, or replace them (recorded, undone on delete). */
+  onConflict: z.enum(CONFLICT_CHOICES).default("refuse"),
 });
 
 const UPLOAD_FIELDS = {
@@ -34,11 +39,12 @@ async function readUpload(req: Parameters<typeof readMultipart>[0]) {
   const empty = Object.fromEntries(Object.entries(body.fields).filter(([, v]) => v !== ""));
   const fields = UploadFields.safeParse(empty);
   if (!fields.success) throw requestValidationError(fields.error, "body");
-  const options = ImportOptions.parse(fields.data);
-  const files = body.files.files ?? [];
-  if (files.length === 0) throw new UserError("no-files", 'No file was uploaded: send at least one file in the "files" field.', { status: 400 });
-  const meta = body.files.meta?.[0];
-  return { files, meta, options };
+  const { onConflict, ...importOptions } = fields.data;
+  const options = ImportOptions.parse(importOptions);
+  const given = body.files.files ?? [];
+  if (given.length === 0) throw new UserError("no-files", 'No file was uploaded: send at least one file in the "files" field.', { status: 400 });
+  const { profiles: files, meta, notes } = sortSourceFiles(given, body.files.meta?.[0], options);
+  return { files, meta, options, onConflict, notes };
 }
 
 export const importRoutes = [
@@ -47,49 +53,29 @@ export const importRoutes = [
     path: "/api/imports/preview",
     tag: "imports",
     summary: "Parse uploaded files without storing anything",
-    description: "Shows the detected shape, separator, decimal mark, column roles and units, embryos and warnings, or the reasons a file would be rejected.",
+    description:
+      "Shows the detected shape, separator, decimal mark, column roles and units, embryos and warnings, or the reasons a file would be rejected; " +
+      "and how the file compares with the open database: embryos already stored, what would be added (a new channel, values they lack), conflicts with stored values, " +
+      "and an earlier import of the same bytes. Refused while the demo data set is open.",
     multipart: { fields: UPLOAD_FIELDS },
-    async handler({ req }) {
-      const { files, meta, options } = await readUpload(req);
-      return {
-        files: files.map((f) => {
-          try {
-            const p = parseProfileFile(f, options, meta);
-            return {
-              file: f.name,
-              status: "ok" as const,
-              format: p.format,
-              delimiter: p.delimiter,
-              decimalMark: p.decimalMark,
-              columns: p.columns,
-              embryos: p.embryos.map((e) => ({
-                label: e.label,
-                genotype: e.genotype,
-                lengthUm: e.lengthUm,
-                profiles: p.profiles.filter((x) => x.embryo === e.label).map((x) => ({ channel: x.channel, timeS: x.timeS, points: x.positionsUm.length, positionUnit: x.positionUnit, flipped: x.flipped })),
-              })),
-              warnings: p.warnings,
-              droppedCells: p.droppedCells.slice(0, 100),
-            };
-          } catch (e) {
-            if (!isUserError(e)) throw e;
-            return { file: f.name, status: "rejected" as const, error: { code: e.code, message: e.message, issues: e.issues } };
-          }
-        }),
-      };
+    async handler({ req, db }) {
+      const { files, meta, options, onConflict, notes } = await readUpload(req);
+      refuseDemoImport(db, "page");
+      return { files: previewImports(db, files, options, meta, onConflict), notes };
     },
   }),
   defineRoute({
     method: "post",
     path: "/api/imports",
     tag: "imports",
-    summary: "Import uploaded profile files (each file all-or-nothing)",
+    summary: "Import uploaded profile files (each file all-or-nothing; values that differ from stored embryos are refused unless onConflict says keep or replace)",
     multipart: { fields: UPLOAD_FIELDS },
     async handler({ req, res, db }) {
-      const { files, meta, options } = await readUpload(req);
-      const reports = importFiles(db, files, options, meta);
+      const { files, meta, options, onConflict, notes } = await readUpload(req);
+      refuseDemoImport(db, "page");
+      const reports = importFiles(db, files, options, meta, onConflict);
       res.status(reports.every((r) => r.status === "rejected") ? 422 : 200);
-      return { files: reports };
+      return { files: reports, notes };
     },
   }),
   defineRoute({
@@ -103,7 +89,7 @@ export const importRoutes = [
     method: "delete",
     path: "/api/imports/:id",
     tag: "imports",
-    summary: "Delete one import and only what it added (its profiles and fits, and embryos left empty)",
+    summary: "Delete one import and exactly what it did: its profiles and fits, embryos left empty, and every value it changed on embryos stored before it is put back",
     params: IdParams,
     handler({ db, params }) {
       const deleted = deleteImport(db, params.id);

@@ -6,14 +6,15 @@ const METRIC_COLUMN: Record<string, string> = { lambda: "lambda_um", amplitude: 
 
 /**
  * The per-embryo points of a tracking analysis: the metric against age (s)
- * or stage; boundary against dosage (with ln dosage, the regression's x); or
+ * or stage; boundary against dosage (with ln dosage, the regression's x, and
+ * for embryos that never crossed the threshold the side and the limit); or
  * λ and boundary against embryo length.
  */
 export function trackingTable(t: TrackingResponse): CsvTable {
   if (t.over === "dosage") {
     return {
-      columns: ["group", "embryo", "dosage", "ln_dosage", "boundary_um"],
-      rows: (t.points ?? []).map((p) => [p.group, p.embryo, p.dosage, p.dosage !== null && p.dosage > 0 ? Math.log(p.dosage) : null, p.boundary_um]),
+      columns: ["group", "embryo", "dosage", "ln_dosage", "boundary_um", "no_crossing", "boundary_limit_um"],
+      rows: (t.points ?? []).map((p) => [p.group, p.embryo, p.dosage, p.dosage !== null && p.dosage > 0 ? Math.log(p.dosage) : null, p.boundary_um, p.no_crossing ?? null, p.boundary_limit_um ?? null]),
     };
   }
   if (t.over === "length") {

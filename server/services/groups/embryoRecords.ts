@@ -1,7 +1,7 @@
 import type { Db } from "../../../db/connection.ts";
 import { listFits } from "../../../db/fits.ts";
 import { distinctValues, loadProfiles, type ProfileData } from "../../../db/profiles.ts";
-import { boundaryPosition, defaultBoundaryThreshold } from "../../analysis/compare/boundaryPosition.ts";
+import { defaultBoundaryThreshold, readBoundary } from "../../analysis/compare/boundaryPosition.ts";
 import type { EmbryoRecord } from "../../analysis/compare/embryoRecord.ts";
 import { FitOptions } from "../../analysis/fit/fitOptions.ts";
 import { runFitTask } from "../fits/fitTask.ts";
@@ -64,7 +64,7 @@ export function gatherEmbryoRecords(db: Db, request: RecordsRequest, referenceGr
     const fit = latest.get(p.profileId)!;
     const r = fit.result as { fit: { ok: boolean; parameters?: Record<string, { value: number; se: number | null }> } };
     const params = r.fit.ok ? r.fit.parameters! : {};
-    const boundary = boundaryPosition(p.positionsUm, p.intensities, threshold.value);
+    const boundary = readBoundary(p.positionsUm, p.intensities, threshold.value);
     const background = params.background?.value;
     const amplitude = params.amplitude?.value;
     return {
@@ -77,7 +77,9 @@ export function gatherEmbryoRecords(db: Db, request: RecordsRequest, referenceGr
       // The comparison layer subtracts the background itself, so pass the amplitude including it.
       amplitude: amplitude !== undefined && background !== undefined ? amplitude + background : amplitude,
       background,
-      boundaryUm: boundary ?? undefined,
+      boundaryUm: boundary.kind === "crossed" ? boundary.positionUm : undefined,
+      boundaryCensored: boundary.kind === "crossed" ? undefined : boundary.kind,
+      boundaryLimitUm: boundary.kind === "crossed" ? undefined : boundary.limitUm,
       lengthUm: p.lengthUm ?? undefined,
       stage: stageValue(p.stage),
       ageS: p.ageS ?? undefined,

@@ -24,7 +24,7 @@ export const PlanRequest = RecordsRequest.extend({
   alpha: z.number().gt(0).lt(0.5).default(0.05),
   /** lambda: a change in mean λ; sigma_x: a change in a spread (σ_x or boundary SD). */
   metric: z.enum(["lambda", "sigma_x"]).default("lambda"),
-  /** Group whose variability is used (genotype); the largest group by default. */
+  /** Group whose variability is used (genotype); by default the most variable selected group (largest CV), which is conservative. */
   group: z.string().min(1).optional(),
   simulations: z.number().int().min(100).max(100_000).default(2000),
   permutationSimulations: z.number().int().min(0).max(10_000).default(400),

@@ -2,6 +2,7 @@ import { storeAnalysis } from "../../../db/analyses.ts";
 import type { Db } from "../../../db/connection.ts";
 import type { PlanOptionsInput } from "../../analysis/compare/planning/planOptions.ts";
 import type { SamplePlan } from "../../analysis/compare/planning/planSampleSize.ts";
+import { mostVariableGroup, type PlanningGroupChoice } from "../../analysis/compare/planning/mostVariableGroup.ts";
 import { UserError } from "../../userError.ts";
 import { ENGINE_VERSION } from "../../version.ts";
 import { gatherEmbryoRecords, type EmbryoRecords } from "./embryoRecords.ts";
@@ -60,27 +61,31 @@ export interface PreparedPlan {
   request: PlanRequest;
   gathered: Omit<EmbryoRecords, "records"> | null;
   group: string | null;
+  /** Which group's variability the plan uses and why; null for a spread plan. */
+  choice: PlanningGroupChoice | null;
   options: PlanOptionsInput;
 }
 
-/** The plan's variability comes from the observed λ of one group (the largest, unless chosen). */
+/** The plan's variability comes from the observed λ of one group: the chosen one, else the most variable (conservative). */
 export function preparePlan(db: Db, request: PlanRequest): PreparedPlan {
   const base = { effect: request.effect, power: request.power, alpha: request.alpha, simulations: request.simulations, permutationSimulations: request.permutationSimulations, seed: request.seed };
-  if (request.metric === "sigma_x") return { request, gathered: null, group: null, options: { ...base, quantity: "spread" } };
+  if (request.metric === "sigma_x") return { request, gathered: null, group: null, choice: null, options: { ...base, quantity: "spread" } };
   const { records, ...gathered } = gatherEmbryoRecords(db, request);
   const byGroup = new Map<string, number[]>();
   for (const r of records) if (r.converged && Number.isFinite(r.lambdaUm)) byGroup.set(r.group, [...(byGroup.get(r.group) ?? []), r.lambdaUm]);
-  const group = request.group ?? [...byGroup].sort((a, b) => b[1].length - a[1].length)[0]?.[0];
-  const observed = group ? byGroup.get(group) : undefined;
-  if (!observed || observed.length < 3) throw new UserError("too-few-embryos", `Planning needs the fitted λ of at least 3 embryos of one group${group ? ` ("${group}" has ${observed?.length ?? 0})` : ""}.`, { status: 422 });
-  return { request, gathered, group, options: { ...base, quantity: "mean", observed } };
+  const choice = mostVariableGroup(byGroup, request.group);
+  if (!choice) {
+    const counts = [...byGroup].map(([g, v]) => `"${g}" has ${v.length}`).join(", ");
+    throw new UserError("too-few-embryos", `Planning needs the fitted λ of at least 3 embryos of one group${request.group ? ` ("${request.group}" has ${byGroup.get(request.group)?.length ?? 0})` : counts ? ` (${counts})` : ""}.`, { status: 422 });
+  }
+  return { request, gathered, group: choice.group, choice, options: { ...base, quantity: "mean", observed: byGroup.get(choice.group)! } };
 }
 
 export function storePlan(db: Db, prepared: PreparedPlan, plan: SamplePlan) {
   const analysis = {
     selection: { ...prepared.request.selection, channel: prepared.gathered?.channel ?? null, group: prepared.group },
     settings: prepared.request,
-    result: plan,
+    result: prepared.choice ? { ...plan, variability_group: prepared.choice } : plan,
   };
   const id = storeAnalysis(db, { kind: "plan", ...analysis, engineVersion: ENGINE_VERSION, profileIds: prepared.gathered?.profileIds ?? [] });
   return planResponse({ id, ...analysis });

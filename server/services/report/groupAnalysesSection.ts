@@ -20,20 +20,28 @@ function comparisons(data: ReportData, figures: Figures): string {
       const u = METRIC_UNIT[c.metric] ?? "";
       const summary = (g: (typeof c.groups)[number]) => (c.metric === "lambda" ? g.lambda_um : c.metric === "amplitude" ? g.amplitude_au : c.metric === "boundary" ? g.boundary_um : null);
       const groups = htmlTable(
-        ["group", "embryos", `mean (${u}) ± SD`, "95% CI", "λ of the global fit (µm)", "boundary SD (µm)"],
+        ["group", "embryos", `mean (${u}) ± SD`, "95% CI of the mean (t interval)", "λ of the global fit (µm)", "boundary SD (µm)"],
         c.groups.map((g) => {
           const s = summary(g);
           return [g.name, g.n, s ? `${formatNumber(s.mean)}${s.sd !== null ? ` ± ${formatNumber(s.sd)}` : ""}` : null, s ? formatInterval(s.ci95) : null, g.lambda_global_um ? formatWithError(g.lambda_global_um.value, g.lambda_global_um.se) : null, g.boundary_sd_um ? `${formatNumber(g.boundary_sd_um.value)} ${formatInterval(g.boundary_sd_um.ci95)}` : null];
         }),
         [false, true, true, true, true, true],
       );
+      const means = c.metric !== "sigma_x";
       const contrasts = htmlTable(
-        ["contrast", `difference (${u})`, "95% CI", "ratio", "95% CI", "Hedges' g", "p (Welch)", "p (permutation)", "p (Holm-adjusted)"],
-        c.contrasts.map((k) => [`${k.a} − ${k.b}`, k.difference ? formatNumber(k.difference.value) : null, formatInterval(k.difference?.ci95), k.ratio ? formatNumber(k.ratio.value) : null, formatInterval(k.ratio?.ci95), k.effect_size ? formatNumber(k.effect_size.value) : null, p(k.p_welch), p(k.p_permutation ?? k.p_spread), p(k.p_holm)]),
-        [false, true, true, true, true, true, true, true, true],
+        ["contrast", `difference (${u})`, means ? "95% CI (Welch t)" : "95% CI", "ratio", means ? "95% CI (Fieller)" : "95% CI", ...(means ? ["bootstrap 95% CI of the difference (second opinion)", "bootstrap 95% CI of the ratio (second opinion)"] : []), "Hedges' g", "p (Welch)", "p (permutation)", "p (Holm-adjusted)"],
+        c.contrasts.map((k) => [
+          `${k.a} − ${k.b}`, k.difference ? formatNumber(k.difference.value) : null, formatInterval(k.difference?.ci95), k.ratio ? formatNumber(k.ratio.value) : null, formatInterval(k.ratio?.ci95),
+          ...(means ? [formatInterval(k.difference?.bootstrap_ci95 ?? null), formatInterval(k.ratio?.bootstrap_ci95 ?? null)] : []),
+          k.effect_size ? formatNumber(k.effect_size.value) : null, p(k.p_welch), p(k.p_permutation ?? k.p_spread), p(k.p_holm),
+        ]),
+        [false, true, true, true, true, ...(means ? [true, true] : []), true, true, true, true],
       );
+      const intervalNote = means
+        ? "<p>Intervals: group means use the t interval; differences use Welch's t interval and ratios Fieller's interval with Welch's degrees of freedom, so an interval excludes 0 (difference) or 1 (ratio) exactly when p (Welch) is below 0.05. Bootstrap intervals are a second opinion only: they under-cover with few embryos per group.</p>"
+        : "";
       const warnings = c.warnings.length ? list(c.warnings) : "";
-      return `<section class="analysis"><h3>Comparison #${c.analysis_id}: ${escapeHtml(c.metric)} by ${escapeHtml(c.by)} (${escapeHtml(c.channel)})</h3>${groups}${contrasts}${warnings}${settingsBlock(`Settings of comparison #${prov.analysisId}: engine ${prov.engineVersion}, stored ${prov.createdAt}`, { request: prov.settings, resolved: c.settings })}${figuresHtml(figures(`comparison:${c.analysis_id}`))}</section>`;
+      return `<section class="analysis"><h3>Comparison #${c.analysis_id}: ${escapeHtml(c.metric)} by ${escapeHtml(c.by)} (${escapeHtml(c.channel)})</h3>${groups}${contrasts}${intervalNote}${warnings}${settingsBlock(`Settings of comparison #${prov.analysisId}: engine ${prov.engineVersion}, stored ${prov.createdAt}`, { request: prov.settings, resolved: c.settings })}${figuresHtml(figures(`comparison:${c.analysis_id}`))}</section>`;
     })
     .join("");
 }
@@ -41,8 +49,10 @@ function comparisons(data: ReportData, figures: Figures): string {
 function trackingSummary(t: ReportData["trackings"][number]["response"]): string[] {
   if (t.over === "dosage") {
     const d = t.result as DosageResult;
+    const per = (d.dosages ?? []).map((lv) => `${lv.dosage}×: ${lv.n_embryos ?? lv.n} embryos, ${(lv.no_crossing?.before_start ?? 0) + (lv.no_crossing?.beyond_end ?? 0)} never cross the threshold`).join("; ");
     return [
-      `λ from the boundary shift (slope of boundary on ln dosage): ${d.lambda_from_shift_um ? `${formatWithError(d.lambda_from_shift_um.value, d.lambda_from_shift_um.se, "µm")} ${formatInterval(d.lambda_from_shift_um.ci95)}` : "—"}.`,
+      `Embryos per dosage: ${per}.`,
+      `λ from the boundary shift (slope of boundary on ln dosage): ${d.lambda_from_shift_um ? `${formatWithError(d.lambda_from_shift_um.value, d.lambda_from_shift_um.se, "µm")} ${formatInterval(d.lambda_from_shift_um.ci95)}` : "not estimated"}${d.shift_refused ? ` — refused: ${d.shift_refused}` : d.shift_method ? ` (${d.shift_method})` : ""}.`,
       `λ from the profile fits: ${d.lambda_from_fit_um ? `${formatWithError(d.lambda_from_fit_um.value, d.lambda_from_fit_um.se, "µm")} ${formatInterval(d.lambda_from_fit_um.ci95)}` : "—"}; ${d.agree === null ? "agreement could not be judged" : d.agree ? "the two agree (the CI of their difference contains 0)" : "the two DISAGREE"}.`,
       `Assumes: ${d.assumptions.join("; ")}.`,
     ];
@@ -67,7 +77,7 @@ function plans(data: ReportData, figures: Figures): string {
   return data.plans
     .map(({ response: r, provenance: prov }) => {
       const table = htmlTable(["embryos per group", "power, exact", "power, normal approximation", "power, simulated", "power, simulated permutation test"], r.table.map((row) => [row.n, row.power_analytic.toFixed(3), row.power_normal.toFixed(3), row.power_simulated.toFixed(3), row.power_permutation_simulated?.toFixed(3)]), [true, true, true, true, true]);
-      return `<section class="analysis"><h3>Sample-size plan #${r.analysis_id}: ${escapeHtml(r.metric)}${r.group ? ` (variability of ${escapeHtml(r.group)})` : ""}</h3>${list([`${r.n_required}${r.capped ? " or more (search capped)" : ""} embryos per group to detect a ${formatNumber(r.settings.effect * 100)}% change with power ${r.settings.power} at α = ${r.settings.alpha}.`, `Method: ${r.formula}.`, ...r.notes])}${table}${settingsBlock(`Settings of plan #${prov.analysisId}: engine ${prov.engineVersion}, stored ${prov.createdAt}`, { request: prov.settings, resolved: r.settings })}${figuresHtml(figures(`plan:${r.analysis_id}`))}</section>`;
+      return `<section class="analysis"><h3>Sample-size plan #${r.analysis_id}: ${escapeHtml(r.metric)}${r.group ? ` (variability of ${escapeHtml(r.group)})` : ""}</h3>${list([`${r.n_required}${r.capped ? " or more (search capped)" : ""} embryos per group to detect a ${formatNumber(r.settings.effect * 100)}% change with power ${r.settings.power} at α = ${r.settings.alpha}.`, `Method: ${r.formula}.`, ...(r.variability_group ? [`Used the ${r.variability_group.sentence}.`] : []), ...r.notes])}${table}${settingsBlock(`Settings of plan #${prov.analysisId}: engine ${prov.engineVersion}, stored ${prov.createdAt}`, { request: prov.settings, resolved: r.settings })}${figuresHtml(figures(`plan:${r.analysis_id}`))}</section>`;
     })
     .join("");
 }

@@ -84,9 +84,9 @@ describe("compareGroups", () => {
     }
   });
 
-  it("compareGroups applies Holm's step-down adjustment across the family of contrasts", () => {
+  it("compareGroups applies Holm's step-down adjustment to Welch's p (the test its intervals invert) across the family of contrasts", () => {
     // Source: Holm 1979, Scand J Stat — p̃(i) = max_{j≤i} min(1, (m − j + 1) p(j)), computed here by hand.
-    const raw = result.contrasts.map((c) => c.p_permutation!);
+    const raw = result.contrasts.map((c) => c.p_welch!);
     const order = raw.map((p, i) => [p, i] as const).sort((x, y) => x[0] - y[0]);
     let running = 0;
     const expected: number[] = [];

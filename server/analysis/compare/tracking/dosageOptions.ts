@@ -14,6 +14,13 @@ export const DosageOptions = z.object({
   level: z.number().gt(0.5).lt(1).default(0.95),
   seed: z.number().int().default(1),
   excludeStatuses: z.array(z.string()).default(["excluded", "rejected", "failed"]),
+  /**
+   * Largest fraction of one dosage's embryos that may have no threshold
+   * crossing (0.5 by default). Up to it, those embryos enter the shift as
+   * censored values; beyond it the shift estimate is refused, because the
+   * dosage's mean boundary would then rest on the assumed normal tail alone.
+   */
+  maxUncrossedFraction: z.number().min(0).max(0.9).default(0.5),
 });
 
 export type DosageOptionsInput = z.input<typeof DosageOptions>;

@@ -1,10 +1,10 @@
 import { describe, expect, it } from "vitest";
-import { logGamma } from "../../server/analysis/special/logGamma.ts";
-import { incompleteBeta } from "../../server/analysis/special/incompleteBeta.ts";
-import { erf, erfc, erfcx } from "../../server/analysis/special/errorFunction.ts";
-import { normalCdf, normalQuantile } from "../../server/analysis/stats/normal.ts";
-import { studentTCdf, studentTQuantile, studentTTwoSidedP } from "../../server/analysis/stats/studentT.ts";
-import { runPython, relativeDifference } from "../helpers/python.ts";
+import { logGamma } from "../../../server/analysis/special/logGamma.ts";
+import { incompleteBeta } from "../../../server/analysis/special/incompleteBeta.ts";
+import { erf, erfc, erfcx } from "../../../server/analysis/special/errorFunction.ts";
+import { normalCdf, normalQuantile } from "../../../server/analysis/stats/normal.ts";
+import { studentTCdf, studentTQuantile, studentTTwoSidedP } from "../../../server/analysis/stats/studentT.ts";
+import { runPython, relativeDifference } from "../../helpers/python.ts";
 
 // Source: scipy.special and scipy.stats as the outside reference on identical inputs.
 const reference = await runPython<{
