@@ -54,7 +54,10 @@ export interface PrecisionFigureInput {
   /** σ_x per grid position; null where masked (flat gradient or no spread). */
   sigma_x: readonly (number | null)[];
   sigma_x_ci95: readonly (readonly [number, number] | null)[];
-  min_sigma_x: { value: number; position: number } | null;
+  /** Headline σ_x over the stated region (geometric mean); null for analyses stored before it existed. */
+  sigma_x_summary?: { value: number } | null;
+  /** The stated region of the information and the headline σ_x. */
+  information_region?: { from: number; to: number } | null;
   boundary: {
     threshold: number;
     positions: Readonly<Record<string, number | null>>;

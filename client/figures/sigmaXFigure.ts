@@ -9,7 +9,7 @@ import { scatterConfig, type FigureConfig } from "./scatterConfig.ts";
 /**
  * Positional error σ_x(x) = σ_c(x)/|dc̄/dx| (Gregor, Tank, Wieschaus, Bialek
  * 2007, Cell) with its bootstrap 95% band; masked positions (flat gradient,
- * no spread) are gaps. The joint σ_x of several channels, when present, is
+ * no spread) are gaps. The legend states the headline σ_x over the stated region. The joint σ_x of several channels, when present, is
  * drawn beside it.
  */
 export function sigmaXFigure(precision: PrecisionFigureInput): FigureConfig {
@@ -17,8 +17,9 @@ export function sigmaXFigure(precision: PrecisionFigureInput): FigureConfig {
   const x = precision.x;
   const ci = precision.sigma_x_ci95;
   const colour = SERIES_COLOURS[0];
-  const min = precision.min_sigma_x;
-  const minText = min ? ` (minimum ${formatNumber(min.value)} ${a.lengthUnit} at ${formatNumber(min.position)} ${a.lengthUnit})` : "";
+  const summary = precision.sigma_x_summary;
+  const region = precision.information_region;
+  const minText = summary && region ? ` (${formatNumber(summary.value)} ${a.lengthUnit} over ${formatNumber(region.from)}–${formatNumber(region.to)} ${a.lengthUnit})` : "";
   const datasets = [
     ...bandDatasets("bootstrap 95% CI", chartPoints(x, ci.map((c) => (c ? c[0] : null))), chartPoints(x, ci.map((c) => (c ? c[1] : null))), colour),
     lineDataset(`σ_x, ${precision.channel}${minText}`, chartPoints(x, precision.sigma_x), colour),

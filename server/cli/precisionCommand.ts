@@ -27,10 +27,14 @@ the slope of the mean profile, with a bootstrap band over embryos.
                         offset to the group mean: removes imaging-intensity differences)
   --flip auto|none      auto flips embryos that run against their group (default none: flag only)
   --derivative D        savitzky-golay (default) | model (exponential fitted to the mean)
+  --window A:B          fit window of the model derivative (A: or :B leave one end open;
+                        grid units); default: the region below
   --threshold V         boundary threshold intensity (after normalisation)
   --at-position X       or: the threshold is the mean's level at X (grid units)
   --positions X,Y       also report σ_x at these positions
-  --region A:B          region for positional information and mean σ_x
+  --region A:B          region for positional information and the headline σ_x, the same
+                        for every group (µm, or fraction with relative coords); default:
+                        the span every profile covers, trimmed by 10% at each end
   --spacing S           grid spacing (µm, or fraction with relative coords)
   --min-slope-snr S     leave out positions whose slope is below S standard errors (default 3)
   --max-sigma-fraction F leave out σ_x above F of the grid span (default 0.25)
@@ -39,7 +43,14 @@ the slope of the mean profile, with a bootstrap band over embryos.
   --include-excluded    also use excluded embryos (left out and listed by default)
 ${COMMON_HELP}
 
-With --json: one object for one group, or {"results": [...]} for several.`,
+The headline σ_x is the geometric mean of σ_x over the region; positional
+information is the direct estimate extrapolated to infinitely many embryos
+(needs 12 or more) beside the small-noise approximation. Positions in the region
+whose slope the data cannot resolve count as carrying no information.
+
+With --json: one object for one group, or {"results": [...]} for several.
+Stable fields: information_region {from, to, unit}, sigma_x_summary {value, ci95,
+method}, positional_information_bits.small_noise and .direct_extrapolated {value, ci95}.`,
   options: {
     ...COMMON_OPTIONS,
     genotype: { type: "string" },
@@ -48,6 +59,7 @@ With --json: one object for one group, or {"results": [...]} for several.`,
     normalize: { type: "string" },
     flip: { type: "string" },
     derivative: { type: "string" },
+    window: { type: "string" },
     threshold: { type: "string" },
     "at-position": { type: "string" },
     positions: { type: "string" },
@@ -63,6 +75,8 @@ With --json: one object for one group, or {"results": [...]} for several.`,
     if (values.threshold !== undefined && values["at-position"] !== undefined) throw new UserError("bad-option", "give either --threshold or --at-position, not both");
     const region = rangeOption("region", values.region as string | undefined);
     if (region && (region.min === undefined || region.max === undefined)) throw new UserError("bad-option", "--region needs both ends, e.g. 50:300");
+    const window = rangeOption("window", values.window as string | undefined);
+    if (window && values.derivative !== "model") throw new UserError("bad-option", "--window sets the fit window of the model derivative; add --derivative model");
     const parsed = PrecisionRequest.safeParse({
       selection: genotypeSelection(values.genotype as string | undefined),
       channels: (values.channel as string | undefined)?.split(",").map((c) => c.trim()),
@@ -70,6 +84,7 @@ With --json: one object for one group, or {"results": [...]} for several.`,
       normalisation: values.normalize,
       flip: values.flip,
       derivative: values.derivative,
+      modelWindow: window ? { from: window.min, to: window.max } : undefined,
       threshold: numberOption("threshold", values.threshold as string | undefined),
       atPosition: numberOption("at-position", values["at-position"] as string | undefined),
       positions: ((values.positions as string | undefined) ?? "").split(",").filter((s) => s.trim()).map((s) => numberOption("positions", s)!),
@@ -97,15 +112,20 @@ With --json: one object for one group, or {"results": [...]} for several.`,
       }
       for (const r of results) {
         const u = r.unit === "um" ? " µm" : " (fraction of length)";
-        const m = r.min_sigma_x;
         const b = r.boundary;
         const pi = r.positional_information_bits;
         const ci = (c: [number, number] | null | undefined) => (c ? ` [${significant(c[0])}, ${significant(c[1])}]` : "");
-        io.stdout(`\n${r.group} / ${r.channel}: ${r.n_embryos} embryos, ${r.coords} coordinates, normalisation ${r.normalisation}\n`);
-        if (m) io.stdout(`  minimal σ_x = ${significant(m.value)}${u}${ci(m.ci95)} at ${significant(m.position)}${m.fraction_of_length ? ` (${(m.fraction_of_length.value * 100).toFixed(1)}% of length)` : ""}\n`);
+        const bits = (e: { value: number; ci95: [number, number] | null } | null) => (e ? `${significant(e.value)}${ci(e.ci95)} bits` : "—");
+        const region = r.information_region;
+        const sx = r.sigma_x_summary;
+        io.stdout(`\n${r.group} / ${r.channel}: ${r.n_embryos} embryos, ${r.coords} coordinates, normalisation ${r.normalisation}; slope from ${r.derivative}\n`);
+        const exact = (v: number) => String(Number(v.toPrecision(6)));
+        if (region) io.stdout(`  region ${exact(region.from)}–${exact(region.to)}${u} (${region.description})\n`);
+        if (sx) io.stdout(`  σ_x over the region = ${significant(sx.value)}${u}${ci(sx.ci95)}${sx.fraction_of_length ? ` (${(sx.fraction_of_length.value * 100).toFixed(1)}% of length)` : ""}; geometric mean${sx.positions_without_information ? `, ${sx.positions_without_information} of ${sx.region_positions} positions without a resolved slope count as no information` : ""}\n`);
         if (b && b.sd !== null) io.stdout(`  boundary at threshold ${significant(b.threshold)} a.u.: mean position ${significant(b.mean_position ?? NaN)}, SD ${significant(b.sd)}${u}${ci(b.sd_ci95)}; σ_x there ${b.sigma_x_at_threshold ? significant(b.sigma_x_at_threshold.value) : "—"}\n`);
-        io.stdout(`  positional information: ${pi.small_noise !== null ? significant(pi.small_noise) : "—"} bits (small-noise)${ci(pi.ci95.small_noise)}, ${pi.direct !== null ? significant(pi.direct) : "—"} bits (direct)${ci(pi.ci95.direct)}\n`);
-        if (r.joint?.min_sigma_x) io.stdout(`  joint σ_x from ${r.joint.channels.join(" + ")}: minimal ${significant(r.joint.min_sigma_x.value)}${u} at ${significant(r.joint.min_sigma_x.position)}\n`);
+        io.stdout(`  positional information: ${bits(pi.direct_extrapolated)} (direct, extrapolated to infinitely many embryos), ${bits(pi.small_noise)} (small-noise)\n`);
+        if (r.slope_model) io.stdout(`  model slope: exponential λ = ${significant(r.slope_model.lambda)}${u}, ${r.slope_model.window ? `fitted over ${significant(r.slope_model.window[0])}–${significant(r.slope_model.window[1])}${u}, ` : ""}refitted in every bootstrap resample\n`);
+        if (r.joint?.sigma_x_summary) io.stdout(`  joint σ_x from ${r.joint.channels.join(" + ")} over the region: ${significant(r.joint.sigma_x_summary.value)}${u}${ci(r.joint.sigma_x_summary.ci95)}\n`);
         for (const w of r.warnings) io.stdout(`  ! ${w.message}\n`);
         if (r.left_out.length) io.stdout(`  left out (excluded): ${r.left_out.map(leftOutText).join("; ")}\n`);
       }

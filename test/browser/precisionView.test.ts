@@ -5,7 +5,7 @@ import { downloadFile } from "../helpers/downloadFile.ts";
 import { readNumbers } from "../helpers/readNumbers.ts";
 
 interface JobList {
-  jobs: { id: string; kind: string; status: string; createdAt: string; result: { results: { analysis_id: number; min_sigma_x: { value: number; se: number; position: number }; boundary: { sd: number; positions: Record<string, number> }; positional_information_bits: { small_noise: number } }[] } | null }[];
+  jobs: { id: string; kind: string; status: string; createdAt: string; result: { results: { analysis_id: number; sigma_x_summary: { value: number; se: number }; information_region: { from: number; to: number }; boundary: { sd: number; positions: Record<string, number> }; positional_information_bits: { small_noise: { value: number }; direct_extrapolated: { value: number } } }[] } | null }[];
 }
 
 /** Record every progress state the page shows, from before the job starts. */
@@ -54,13 +54,18 @@ describe("Precision view in chromium", () => {
     const job = jobs.filter((j) => j.kind === "precision" && j.status === "done").at(-1)!;
     const r = job.result!.results[0];
     const section = page.locator(`.precision-result[data-analysis-id="${r.analysis_id}"]`);
-    const [minValue, minSe] = readNumbers(await section.locator('[data-key="min-sigma-x"] dd').innerText());
-    expect(Math.abs(minValue.value - r.min_sigma_x.value)).toBeLessThanOrEqual(minValue.halfUnit + 1e-9);
-    expect(Math.abs(minSe.value - r.min_sigma_x.se)).toBeLessThanOrEqual(minSe.halfUnit + 1e-9);
+    const [headline, headlineSe] = readNumbers(await section.locator('[data-key="sigma-x-summary"] dd').innerText());
+    expect(Math.abs(headline.value - r.sigma_x_summary.value)).toBeLessThanOrEqual(headline.halfUnit + 1e-9);
+    expect(Math.abs(headlineSe.value - r.sigma_x_summary.se)).toBeLessThanOrEqual(headlineSe.halfUnit + 1e-9);
+    const [from, to] = readNumbers(await section.locator('[data-key="information-region"] dd').innerText());
+    expect(Math.abs(from.value - r.information_region.from)).toBeLessThanOrEqual(from.halfUnit + 1e-9);
+    expect(Math.abs(to.value - r.information_region.to)).toBeLessThanOrEqual(to.halfUnit + 1e-9);
+    const [extrapolated] = readNumbers(await section.locator('[data-key="pi-extrapolated"] dd').innerText());
+    expect(Math.abs(extrapolated.value - r.positional_information_bits.direct_extrapolated.value)).toBeLessThanOrEqual(extrapolated.halfUnit + 1e-9);
     const [sd] = readNumbers(await section.locator('[data-key="boundary-sd"] dd').innerText());
     expect(Math.abs(sd.value - r.boundary.sd)).toBeLessThanOrEqual(sd.halfUnit + 1e-9);
     const [bits] = readNumbers(await section.locator('[data-key="pi-small-noise"] dd').innerText());
-    expect(Math.abs(bits.value - r.positional_information_bits.small_noise)).toBeLessThanOrEqual(bits.halfUnit + 1e-9);
+    expect(Math.abs(bits.value - r.positional_information_bits.small_noise.value)).toBeLessThanOrEqual(bits.halfUnit + 1e-9);
     expect(await section.locator(".table-block tbody tr").count()).toBe(Object.keys(r.boundary.positions).length);
     const method = await section.locator(".notice-info").first().innerText();
     expect(method).toContain("Normalisation: none");

@@ -107,25 +107,65 @@ describe("analysis commands on the demo database", () => {
     expect(d.degradationPerS.se).toBeGreaterThan(0);
   });
 
-  it("precision --json returns σ_x with its band, the minimal σ_x, boundary spread and positional information", async () => {
+  it("precision --json returns σ_x with its band, the stated region, the headline σ_x, boundary spread and positional information under stable names", async () => {
     const out = await json("precision", "--genotype", "wt", "--channel", "glm", "--bootstrap", "200");
     expect(out).toMatchObject({ group: "wt", n_embryos: 30, coords: "absolute" });
     expect(out.x.length).toBe(out.sigma_x.length);
     expect(out.sigma_x_ci95.length).toBe(out.x.length);
-    expect(out.min_sigma_x.value).toBeGreaterThan(0);
-    expect(out.min_sigma_x.ci95).toHaveLength(2);
+    // common practice, no source: the default region is the covered span trimmed by 10% at each end.
+    const span = out.settings.grid.range;
+    expect(out.information_region).toMatchObject({ unit: "um", source: "default" });
+    expect(out.information_region.from).toBeCloseTo(span[0] + 0.1 * (span[1] - span[0]), 9);
+    expect(out.information_region.to).toBeCloseTo(span[1] - 0.1 * (span[1] - span[0]), 9);
+    const s = out.sigma_x_summary;
+    expect(s.method).toBe("geometric mean over the region");
+    expect(s.ci95[0]).toBeLessThan(s.value);
+    expect(s.ci95[1]).toBeGreaterThan(s.value);
     expect(Object.keys(out.boundary.positions)).toHaveLength(30);
     expect(out.boundary.sd).toBeGreaterThan(0);
-    expect(out.positional_information_bits.small_noise).toBeGreaterThan(0);
-    expect(out.positional_information_bits.direct).toBeGreaterThan(0);
-    expect(out.positional_information_bits.ci95.small_noise).toHaveLength(2);
+    for (const key of ["small_noise", "direct_extrapolated"]) {
+      const e = out.positional_information_bits[key];
+      expect(e.value).toBeGreaterThan(0);
+      expect(e.ci95[0]).toBeLessThan(e.value);
+      expect(e.ci95[1]).toBeGreaterThan(e.value);
+    }
     // Expected relative error of σ_x from n embryos: 1/√(2(n−1)). Source: Gregor et al. 2007, Cell.
     expect(out.sigma_x_expected_relative_error).toBeCloseTo(1 / Math.sqrt(58), 12);
   });
 
+  it("precision over several genotypes uses one region for all of them and prints it; --region is kept exactly or refused", async () => {
+    // common practice, no source: groups are compared only on one common, stated region.
+    const out = await json("precision", "--genotype", "wt,tardy,glm-2x", "--channel", "glm", "--bootstrap", "20");
+    const regions = out.results.map((r: { information_region: { from: number; to: number } }) => [r.information_region.from, r.information_region.to]);
+    expect(new Set(regions.map(String)).size).toBe(1);
+    const text = (await cli("precision", "--genotype", "wt,tardy", "--channel", "glm", "--bootstrap", "20", "--region", "60:300")).stdout;
+    expect(text.match(/region 60–300 µm \(requested\)/g)).toHaveLength(2);
+    expect(text).toContain("σ_x over the region =");
+    expect(text).toContain("bits (direct, extrapolated to infinitely many embryos)");
+    const beyond = await runCliInProcess(["precision", "--genotype", "wt", "--channel", "glm", "--region", "0:2000", "--db", db], {}, dir);
+    expect(beyond.code).toBe(1);
+    expect(beyond.stderr).toMatch(/region 0 to 2000 reaches beyond the grid/);
+  });
+
+  it("precision --derivative model fits the exponential inside --window and refits it in every resample", async () => {
+    const out = await json("precision", "--genotype", "wt", "--channel", "glm", "--bootstrap", "20", "--derivative", "model", "--window", "60:300");
+    expect(out.slope_model.window).toEqual([60, 300]);
+    // Source: fixtures/demoScenario.ts — the demo's wild-type decay length.
+    expect(Math.abs(out.slope_model.lambda - WT_LAMBDA) / WT_LAMBDA).toBeLessThan(0.15);
+    expect(out.derivative).toContain("refitted in every bootstrap resample");
+    const byDefault = await json("precision", "--genotype", "wt", "--channel", "glm", "--bootstrap", "20", "--derivative", "model");
+    expect(byDefault.slope_model.window).toEqual([byDefault.information_region.from, byDefault.information_region.to]);
+    const refused = await runCliInProcess(["precision", "--genotype", "wt", "--channel", "glm", "--window", "60:300", "--db", db], {}, dir);
+    expect(refused.code).toBe(1);
+    expect(refused.stderr).toContain("add --derivative model");
+  });
+
   it("precision with two channels adds the joint positional error", async () => {
-    const out = await json("precision", "--genotype", "wt", "--channel", "glm,vellin", "--bootstrap", "100");
+    const out = await json("precision", "--genotype", "wt", "--channel", "glm,vellin", "--bootstrap", "30");
     expect(out.joint.channels).toEqual(["glm", "vellin"]);
+    // common practice, no source: the joint readout uses the same stated region as each channel.
+    expect(out.joint.information_region).toEqual(out.information_region);
+    expect(out.joint.sigma_x_summary.ci95[0]).toBeLessThan(out.joint.sigma_x_summary.value);
     expect(out.per_channel[0].channel).toBe("vellin");
   });
 

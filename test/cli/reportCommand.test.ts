@@ -52,6 +52,14 @@ describe("morphogauge report", () => {
     expect(/<style>[\s\S]+<\/style>/.test(html), "inline style sheet").toBe(true);
   });
 
+  it("index.html states the region behind the precision headlines, the headline σ_x and the extrapolated direct information", () => {
+    // common practice, no source: every headline number carries the region and method it was computed with.
+    has("Region for positional information and the headline σ_x:");
+    has("trimmed by 10% at each end");
+    has("Headline σ_x =");
+    has("(direct estimate extrapolated to infinitely many embryos)");
+  });
+
   it("index.html names the imported file with the SHA-256 of its bytes", () => {
     const sha = createHash("sha256").update(readFileSync(new URL("../../fixtures/glimmerin_long.csv", import.meta.url))).digest("hex");
     has("glimmerin_long.csv");

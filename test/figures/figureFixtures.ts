@@ -54,7 +54,8 @@ export const precisionInput: PrecisionFigureInput = {
   sd_intensity: [10, 7, 5, 3, 2],
   sigma_x: [null, 9.5, 10.2, 11, null],
   sigma_x_ci95: [null, [7, 12], [8, 13], [8.5, 14], null],
-  min_sigma_x: { value: 9.5, position: 10 },
+  sigma_x_summary: { value: 10.2 },
+  information_region: { from: 4, to: 36 },
   boundary: { threshold: 40, positions: { a: 24, b: 19, c: 27, d: null }, never_cross: ["d"], mean_position: 23.333333, sd: 4.041452 },
   normalisation: "none",
   decoding: {

@@ -13,7 +13,8 @@ describe("sigmaXFigure", () => {
     const sigma = dataset(config, "σ_x, sig").data.map((p) => p.y);
     expect(sigma).toEqual([NaN, 9.5, 10.2, 11, NaN]);
     expect(dataset(config, "bootstrap 95% CI").data.map((p) => p.y)).toEqual([NaN, 12, 13, 14, NaN]);
-    expect(dataset(config, "σ_x, sig").label).toContain("minimum 9.50 µm at 10.0 µm");
+    // common practice, no source: the legend states the headline σ_x and the region it summarises.
+    expect(dataset(config, "σ_x, sig").label).toContain("10.2 µm over 4.00–36.0 µm");
   });
 
   it("sigmaXFigure draws the joint σ_x of several channels when present", () => {

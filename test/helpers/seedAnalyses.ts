@@ -21,7 +21,7 @@ export function seedAnalyses(db: Db) {
   const fitInput = prepareFitInput(db, FitRequest.parse({ selection: { genotype: "wt", channel: "glm" }, global: true }));
   const fits = storeFitOutput(db, fitInput, runFitTask(fitInput));
   const precision = (channels: string[]) => {
-    const input = preparePrecisionInput(db, PrecisionRequest.parse({ selection: { genotype: "wt" }, channels, bootstrap: 100 }));
+    const input = preparePrecisionInput(db, PrecisionRequest.parse({ selection: { genotype: "wt" }, channels, bootstrap: 40 }));
     return storePrecisionOutput(db, input, runPrecisionTask(input)).results[0];
   };
   const precisionGlm = precision(["glm"]);

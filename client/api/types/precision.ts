@@ -17,9 +17,13 @@ export interface PrecisionSummary {
   sigma_x_ci95: ([number, number] | null)[];
   sigma_x_expected_relative_error: number | null;
   masked_positions: number;
-  min_sigma_x: (Estimate & { position: number; fraction_of_length: Estimate | null }) | null;
+  /** The stated region of positional information and the headline σ_x (null for analyses stored before regions were stated). */
+  information_region: InformationRegion | null;
+  /** Headline σ_x: geometric mean over the region, interval centred on the value. */
+  sigma_x_summary:
+    | (Estimate & { method: string; description: string; fraction_of_length: Estimate | null; positions_without_information: number; region_positions: number })
+    | null;
   sigma_x_at: { position: number; value: number | null; ci95: [number, number] | null }[];
-  mean_sigma_x: Estimate | null;
   boundary: {
     threshold: number;
     threshold_source: string;
@@ -33,12 +37,12 @@ export interface PrecisionSummary {
     sd_over_sigma_x: number | null;
   } | null;
   positional_information_bits: {
-    small_noise: number | null;
-    direct: number | null;
+    small_noise: Estimate | null;
+    /** The headline direct estimate; null below 12 embryos. */
     direct_extrapolated: Estimate | null;
-    kernel_density: number | null;
-    ci95: { small_noise: [number, number] | null; direct: [number, number] | null; kernel_density: [number, number] | null };
-    region: { from: number; to: number; length: number; source: string } | null;
+    /** Raw direct estimate from all embryos: biased upward, not a headline. */
+    direct_raw: (Estimate & { bias: number | null; note: string }) | null;
+    kernel_density: Estimate | null;
     note: string;
   } | null;
   normalisation: string;
@@ -57,10 +61,19 @@ export interface PrecisionSummary {
     n_embryos: number;
     x: number[];
     sigma_x: (number | null)[];
-    min_sigma_x: { value: number; position: number; ci95: [number, number] | null } | null;
-    positional_information_bits: { small_noise: number | null; direct: number | null; ci95: { small_noise: [number, number] | null; direct: [number, number] | null } };
+    information_region: InformationRegion | null;
+    sigma_x_summary: (Estimate & { method: string }) | null;
+    positional_information_bits: { small_noise: Estimate | null; direct_raw: Estimate | null };
     note: string;
   } | null;
+}
+
+export interface InformationRegion {
+  from: number;
+  to: number;
+  unit: string;
+  source: string;
+  description: string;
 }
 
 export interface PrecisionJobResult {

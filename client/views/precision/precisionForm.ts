@@ -41,6 +41,15 @@ export function precisionForm(choices: Choices, onDone: (r: PrecisionJobResult) 
   const boundaryUnit = el("small", { class: "hint" });
   const positions = textInput("positions", state.positions, "e.g. 100, 150");
   const bootstrap = numberInput("bootstrap", state.bootstrap, { min: 0, max: 100000, step: 1 });
+  const regionFrom = numberInput("regionFrom", state.regionFrom ?? "", { placeholder: "default" });
+  const regionTo = numberInput("regionTo", state.regionTo ?? "", { placeholder: "default" });
+  const windowFrom = numberInput("windowFrom", state.windowFrom ?? "", { placeholder: "region start" });
+  const windowTo = numberInput("windowTo", state.windowTo ?? "", { placeholder: "region end" });
+  const showWindow = () => {
+    windowFrom.disabled = windowTo.disabled = derivative.value !== "model";
+  };
+  derivative.addEventListener("change", showWindow);
+  showWindow();
   const problems = el("div", { "aria-live": "polite" });
   const progress = el("div", { "data-role": "precision-progress" });
 
@@ -65,11 +74,18 @@ export function precisionForm(choices: Choices, onDone: (r: PrecisionJobResult) 
     state.boundaryValue = numberValue(boundaryValue);
     state.positions = positions.value;
     state.bootstrap = numberValue(bootstrap) ?? 1000;
+    state.regionFrom = numberValue(regionFrom);
+    state.regionTo = numberValue(regionTo);
+    state.windowFrom = numberValue(windowFrom);
+    state.windowTo = numberValue(windowTo);
+    const region = state.regionFrom !== undefined && state.regionTo !== undefined ? [state.regionFrom, state.regionTo] : undefined;
     const issues = [
       !state.genotypes.length && "Choose at least one genotype.",
       !state.channels.length && "Choose at least one channel.",
       list.invalid.length && `“σ_x at positions” has parts that are not numbers: ${list.invalid.join(", ")}.`,
       state.boundaryBy !== "default" && state.boundaryValue === undefined && "Give the boundary's threshold or position, or choose the automatic boundary.",
+      (state.regionFrom === undefined) !== (state.regionTo === undefined) && "Give both ends of the region, or leave both empty for the default.",
+      region && !(region[0] < region[1]) && "The region's start must be below its end.",
     ].filter((x): x is string => typeof x === "string");
     replaceChildren(problems, ...issues.map((i) => warningNotice(i)));
     if (issues.length) return;
@@ -82,6 +98,8 @@ export function precisionForm(choices: Choices, onDone: (r: PrecisionJobResult) 
       flip: state.flip,
       bootstrap: Math.round(state.bootstrap),
       positions: list.numbers,
+      ...(region ? { region } : {}),
+      ...(state.derivative === "model" && (state.windowFrom !== undefined || state.windowTo !== undefined) ? { modelWindow: { from: state.windowFrom, to: state.windowTo } } : {}),
       ...(state.boundaryBy === "threshold" ? { threshold: state.boundaryValue } : {}),
       ...(state.boundaryBy === "position" ? { atPosition: state.boundaryValue } : {}),
     };
@@ -115,6 +133,14 @@ export function precisionForm(choices: Choices, onDone: (r: PrecisionJobResult) 
       el("div", { class: "field" }, el("label", { for: "boundary-value" }, "Threshold or position"), Object.assign(boundaryValue, { id: "boundary-value" }), boundaryUnit),
       field("σ_x at positions", positions, "in the coordinates chosen; point as decimal mark"),
       field("Bootstrap resamples", bootstrap, "of whole embryos; 1000 recommended"),
+    ),
+    el(
+      "div",
+      { class: "field-row" },
+      field("Region from", regionFrom, "positional information and the headline σ_x; the same for every genotype"),
+      field("Region to", regionTo, "empty: the span every profile covers, trimmed by 10% at each end"),
+      field("Model fit window from", windowFrom, "only for the exponential slope; empty: the region"),
+      field("Model fit window to", windowTo),
     ),
     problems,
     el("div", { class: "actions" }, run),

@@ -24,8 +24,9 @@ function lengthText(p: PrecisionSummary, x: number | null | undefined, digits = 
   return p.unit === "um" ? `${formatSignificant(x, digits)} µm` : `${formatSignificant(x, digits)} (x/L)`;
 }
 
-function bits(value: number | null | undefined, ci: [number, number] | null | undefined): string {
-  if (value === null || value === undefined) return "—";
+function bits(e: { value: number; ci95?: [number, number] | null } | null | undefined): string {
+  if (!e) return "—";
+  const { value, ci95: ci } = e;
   const place = ci ? uncertaintyDecimals(Math.abs(ci[1] - ci[0]) / 4) : null;
   return `${formatEstimate({ value, ci95: ci ?? null }, "bits")}${ci ? ` ${formatInterval(ci, place)}` : ""}`;
 }
@@ -101,24 +102,31 @@ export function precisionResult(p: PrecisionSummary): HTMLElement {
     ),
     keyNumbers([
       {
-        label: `Smallest σ_x (${lu})`,
-        value: p.min_sigma_x ? formatEstimate(p.min_sigma_x, lu, { ci: true }) : "—",
-        note: p.min_sigma_x ? `at ${lengthText(p, p.min_sigma_x.position)}${p.min_sigma_x.fraction_of_length ? `; ${formatPercent(p.min_sigma_x.fraction_of_length.value, 1)} of length` : ""}` : undefined,
-        key: "min-sigma-x",
+        label: "Region for σ_x and positional information",
+        value: p.information_region ? `${lengthText(p, p.information_region.from, 5)}–${lengthText(p, p.information_region.to, 5)}` : "—",
+        note: p.information_region?.description,
+        key: "information-region",
       },
-      { label: `Mean σ_x over the region (${lu})`, value: p.mean_sigma_x ? formatEstimate(p.mean_sigma_x, lu, { ci: true }) : "—", key: "mean-sigma-x" },
+      {
+        label: `σ_x over the region (${lu})`,
+        value: p.sigma_x_summary ? formatEstimate(p.sigma_x_summary, lu, { ci: true }) : "—",
+        note: p.sigma_x_summary
+          ? `geometric mean${p.sigma_x_summary.fraction_of_length ? `; ${formatPercent(p.sigma_x_summary.fraction_of_length.value, 1)} of length` : ""}${p.sigma_x_summary.positions_without_information ? `; ${p.sigma_x_summary.positions_without_information} of ${p.sigma_x_summary.region_positions} positions without a resolved slope count as no information` : ""}`
+          : undefined,
+        key: "sigma-x-summary",
+      },
       {
         label: "Relative error of σ_x from the number of embryos",
         value: p.sigma_x_expected_relative_error === null ? "—" : `about ${formatPercent(p.sigma_x_expected_relative_error)}`,
         note: "≈ 1/√(2(n−1))",
       },
-      { label: "Positional information, small-noise", value: bits(pi?.small_noise, pi?.ci95.small_noise), key: "pi-small-noise" },
-      { label: "Positional information, direct", value: bits(pi?.direct, pi?.ci95.direct), key: "pi-direct" },
       {
-        label: "Direct, extrapolated to infinitely many embryos",
-        value: pi?.direct_extrapolated ? formatEstimate(pi.direct_extrapolated, "bits", { ci: true }) : "—",
+        label: "Positional information, direct (extrapolated to infinitely many embryos)",
+        value: bits(pi?.direct_extrapolated),
+        note: pi?.direct_raw ? `raw value from all ${p.n_embryos} embryos ${formatSignificant(pi.direct_raw.value, 3)} bits, biased upward` : undefined,
         key: "pi-extrapolated",
       },
+      { label: "Positional information, small-noise", value: bits(pi?.small_noise), key: "pi-small-noise" },
       ...(b
         ? [
             { label: `Boundary threshold (${p.normalisation === "none" ? "a.u." : "normalised"})`, value: formatPlain(b.threshold), note: b.threshold_source },
@@ -140,9 +148,9 @@ export function precisionResult(p: PrecisionSummary): HTMLElement {
         { class: "other-channel" },
         el("h3", {}, `Channel ${c.channel}, same embryos`),
         keyNumbers([
-          { label: `Smallest σ_x (${lu})`, value: c.min_sigma_x ? formatEstimate(c.min_sigma_x, lu, { ci: true }) : "—", note: c.min_sigma_x ? `at ${lengthText(c, c.min_sigma_x.position)}` : undefined },
-          { label: "Positional information, small-noise", value: bits(c.positional_information_bits?.small_noise, c.positional_information_bits?.ci95.small_noise) },
-          { label: "Positional information, direct", value: bits(c.positional_information_bits?.direct, c.positional_information_bits?.ci95.direct) },
+          { label: `σ_x over the region (${lu})`, value: c.sigma_x_summary ? formatEstimate(c.sigma_x_summary, lu, { ci: true }) : "—" },
+          { label: "Positional information, direct (extrapolated)", value: bits(c.positional_information_bits?.direct_extrapolated) },
+          { label: "Positional information, small-noise", value: bits(c.positional_information_bits?.small_noise) },
         ]),
       ),
     ),
@@ -152,14 +160,14 @@ export function precisionResult(p: PrecisionSummary): HTMLElement {
           { class: "joint" },
           el("h3", {}, `Joint readout of ${p.joint.channels.join(" + ")} (${p.joint.n_embryos} embryos, correlations between channels included)`),
           keyNumbers([
-            { label: `Smallest joint σ_x (${lu})`, value: p.joint.min_sigma_x ? formatEstimate(p.joint.min_sigma_x, lu, { ci: true }) : "—", note: p.joint.min_sigma_x ? `at ${lengthText(p, p.joint.min_sigma_x.position)}` : undefined, key: "joint-min-sigma-x" },
-            { label: "Joint positional information, small-noise", value: bits(p.joint.positional_information_bits.small_noise, p.joint.positional_information_bits.ci95.small_noise) },
-            { label: "Joint positional information, direct", value: bits(p.joint.positional_information_bits.direct, p.joint.positional_information_bits.ci95.direct) },
+            { label: `Joint σ_x over the region (${lu})`, value: p.joint.sigma_x_summary ? formatEstimate(p.joint.sigma_x_summary, lu, { ci: true }) : "—", key: "joint-sigma-x-summary" },
+            { label: "Joint positional information, small-noise", value: bits(p.joint.positional_information_bits.small_noise) },
+            { label: "Joint positional information, direct (raw, biased upward)", value: bits(p.joint.positional_information_bits.direct_raw) },
           ]),
           el("p", { class: "hint" }, p.joint.note),
         )
       : null,
-    pi ? el("p", { class: "hint" }, pi.region ? `Region for positional information: ${lengthText(p, pi.region.from)}–${lengthText(p, pi.region.to)} (${pi.region.source}). ` : "", pi.note) : null,
+    pi ? el("p", { class: "hint" }, pi.note) : null,
     ...p.warnings.map((w) => warningNotice(w.message, w.fix)),
     flagsPanel(p),
     leftOutPanel(p),

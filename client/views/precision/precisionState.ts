@@ -11,6 +11,12 @@ export const precisionState = {
   boundaryBy: "default" as "threshold" | "position" | "default",
   boundaryValue: undefined as number | undefined,
   positions: "",
+  /** Region "from–to" for positional information and the headline σ_x; empty for the default. */
+  regionFrom: undefined as number | undefined,
+  regionTo: undefined as number | undefined,
+  /** Fit window of the model slope; empty ends default to the region. */
+  windowFrom: undefined as number | undefined,
+  windowTo: undefined as number | undefined,
   bootstrap: 1000,
   result: null as PrecisionJobResult | null,
 };

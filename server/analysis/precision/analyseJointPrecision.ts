@@ -7,8 +7,8 @@ import type { Coordinates, Profile } from "../ensemble/profile.ts";
 import type { Matrix } from "../linalg/matrix.ts";
 import { createRandom } from "../random/seededRandom.ts";
 import { resampleIndices } from "../stats/bootstrap.ts";
-import { chooseRegion, type AnalysisRegion } from "./analysisRegion.ts";
-import { bootstrapEstimate, withLengthUnits, type ScaledEstimate } from "./bootstrapEstimate.ts";
+import { onNodes, regionNodes, stateRegion, type AnalysisRegion, type RegionNodes } from "./analysisRegion.ts";
+import { bootstrapEstimate, centredEstimate, withLengthUnits, type ScaledEstimate } from "./bootstrapEstimate.ts";
 import { decodingMap, type DecodingMap } from "./decodingMap.ts";
 import { ensembleMoments, rowMean } from "./ensembleMoments.ts";
 import { gaussianInformation, jointGaussianInformation } from "./gaussianInformation.ts";
@@ -16,7 +16,8 @@ import { channelMoments, independentSigmaX, inverseCovarianceBias, jointSigmaX }
 import { meanSlope, type MeanSlope } from "./meanSlope.ts";
 import { positionalErrorCurve, type MaskReason } from "./positionalError.ts";
 import { PrecisionOptions, type PrecisionOptionsInput, type PrecisionSettings } from "./precisionOptions.ts";
-import { minimumSigma } from "./sigmaSummaries.ts";
+import { effectiveSigma, regionSigma, sigmaOnRegion } from "./regionSigma.ts";
+import { levelEstimate, slopeLevels } from "./slopeLevels.ts";
 import { smallNoiseInformation } from "./smallNoiseInformation.ts";
 
 /** One channel (gene, gradient) measured in the same embryos as the others. */
@@ -46,9 +47,11 @@ export interface JointPrecisionResult {
     direct: number | null;
   }[];
   mask: { reason: (MaskReason | null)[]; maskedPositions: number[] };
-  minSigmaX: (ScaledEstimate & { position: number }) | null;
+  /** Geometric mean of the joint σ_x over the region (as in the one-channel analysis); interval centred on the value. */
+  sigmaXSummary: (ScaledEstimate & { method: "geometric mean over the region"; cappedPositions: number }) | null;
   positionalInformation: {
-    region: AnalysisRegion | null;
+    /** The same stated region as every channel's own analysis. */
+    region: AnalysisRegion;
     smallNoise: Estimate | null;
     /** Direct joint estimate; its CI uses the first `slowResamples` resamples. */
     direct: Estimate | null;
@@ -134,19 +137,17 @@ export function analyseJointPrecision(channels: readonly Channel[], options: Pre
   const joint = jointSigmaX(slopes.map((s) => s.slope), moments.covariances);
   const independent = independentSigmaX(slopes.map((s) => s.slope), moments.covariances);
 
-  // Joint mask: no usable covariance, no channel resolving a slope, or σ_x too large.
   const g = grid.x.length;
   const span = grid.x[g - 1] - grid.x[0];
-  const reason: (MaskReason | null)[] = new Array(g).fill(null);
-  for (let k = 0; k < g; k++) {
-    const resolved = slopes.some((s) => Math.abs(s.slope[k]) > settings.mask.minSlopeSnr * s.slopeSe[k] && s.slope[k] !== 0);
-    if (!Number.isFinite(joint[k]) && moments.covariances[k].some((row, c) => !(row[c] > 0))) reason[k] = "no-variance";
-    else if (!resolved) reason[k] = "shallow-slope";
-    else if (!(joint[k] <= settings.mask.maxSigmaFraction * span)) reason[k] = "imprecise";
-    if (reason[k] !== null) joint[k] = NaN;
-  }
+  const reason = jointMask(joint, slopes.map((s) => s.slope), slopes.map((s) => s.slopeSe), moments.covariances, settings.mask, span);
+  const jointRaw = Float64Array.from(joint);
+  for (let k = 0; k < g; k++) if (reason[k] !== null) joint[k] = NaN;
   const masked = reason.map((r) => r !== null);
-  const region = chooseRegion(grid.x, masked, settings.region);
+  const region = stateRegion(grid.x, grid.range, settings.region, settings.regionDefault);
+  const nodes = regionNodes(grid.x, region);
+  const last = nodes.x.length - 1;
+  const jointOnRegion = (sigma: Float64Array, why: (MaskReason | null)[]) =>
+    sigmaOnRegion(Float64Array.from(sigma, (v, k) => (why[k] === "no-variance" ? NaN : why[k] !== null ? Infinity : v)), region, nodes);
   const bias = inverseCovarianceBias(n, K);
   if (bias > 1.1)
     warnings.add(
@@ -157,13 +158,13 @@ export function analyseJointPrecision(channels: readonly Channel[], options: Pre
 
   const nodesPerAxis = K === 1 ? settings.information.hermiteNodes : Math.max(4, Math.ceil(settings.information.hermiteNodes / K));
   const directOf = (m: { means: Float64Array[]; covariances: Matrix[] }) =>
-    region ? jointGaussianInformation(grid.x, m.means, m.covariances, region.startIndex, region.endIndex, nodesPerAxis) : NaN;
+    jointGaussianInformation(nodes.x, m.means.map((v) => onNodes(nodes, v)), covariancesOnNodes(m.covariances, nodes), 0, last, nodesPerAxis);
 
   // Bootstrap over whole embryos.
   const resamples = settings.bootstrap.resamples;
   const slow = Math.min(resamples, settings.bootstrap.slowResamples);
   const repSigma = Array.from({ length: g }, () => new Float64Array(resamples));
-  const repMin = new Float64Array(resamples);
+  const repEffective = new Float64Array(resamples);
   const repSmall = new Float64Array(resamples);
   const repDirect = new Float64Array(slow);
   const random = createRandom(settings.bootstrap.seed);
@@ -171,13 +172,14 @@ export function analyseJointPrecision(channels: readonly Channel[], options: Pre
   for (let b = 0; b < resamples; b++) {
     const idx = resampleIndices(n, random);
     const m = channelMoments(values, idx);
-    const s = jointSigmaX(slopes.map((sl) => rowMean(sl.embryoSlopes, idx)), m.covariances);
-    for (let k = 0; k < g; k++) {
-      if (masked[k]) s[k] = NaN;
-      repSigma[k][b] = s[k];
-    }
-    repMin[b] = region ? minimumSigma(s, region.startIndex, region.endIndex).value : NaN;
-    repSmall[b] = region ? smallNoiseInformation(grid.x, s, region.startIndex, region.endIndex) : NaN;
+    const resampledSlopes = slopes.map((sl) => rowMean(sl.embryoSlopes, idx));
+    const resampledSe = slopes.map((sl) => Float64Array.from(ensembleMoments(sl.embryoSlopes, idx).sd, (v) => v / Math.sqrt(n)));
+    const s = jointSigmaX(resampledSlopes, m.covariances);
+    const why = jointMask(s, resampledSlopes, resampledSe, m.covariances, settings.mask, span);
+    for (let k = 0; k < g; k++) repSigma[k][b] = why[k] === null ? s[k] : NaN;
+    const onRegion = jointOnRegion(s, why).sigma;
+    repEffective[b] = effectiveSigma(nodes.x, onRegion);
+    repSmall[b] = smallNoiseInformation(nodes.x, onRegion, 0, last);
     if (b < slow) repDirect[b] = directOf(m);
     if ((b + 1) % every === 0) progress(0.05 + (0.85 * (b + 1)) / resamples, "bootstrap");
   }
@@ -186,21 +188,22 @@ export function analyseJointPrecision(channels: readonly Channel[], options: Pre
   const meanLengthUm = aligned[0].every((p) => p.lengthUm !== undefined) ? aligned[0].reduce((a, p) => a + (p.lengthUm as number), 0) / n : null;
   const umPerUnit = settings.coords === "absolute" ? 1 : meanLengthUm;
   const fractionPerUnit = settings.coords === "relative" ? 1 : meanLengthUm === null ? null : 1 / meanLengthUm;
-  let minSigmaX: JointPrecisionResult["minSigmaX"] = null;
-  if (region) {
-    const min = minimumSigma(joint, region.startIndex, region.endIndex);
-    const e = withLengthUnits(bootstrapEstimate(min.value, reps ? repMin : null), umPerUnit, fractionPerUnit);
-    if (e) minSigmaX = { ...e, position: grid.x[min.index] };
-  }
+  const jointRegion = jointOnRegion(jointRaw, reason);
+  const effective = withLengthUnits(centredEstimate(effectiveSigma(nodes.x, jointRegion.sigma), reps ? repEffective : null, n, "log"), umPerUnit, fractionPerUnit);
+  const sigmaXSummary: JointPrecisionResult["sigmaXSummary"] = effective
+    ? { ...effective, method: "geometric mean over the region", cappedPositions: jointRegion.capped }
+    : null;
   const perChannel = names.map((name, c) => {
     const sd = ensembleMoments(values[c]);
     const curve = positionalErrorCurve(grid.x, sd.sd, slopes[c].slope, slopes[c].slopeSe, settings.mask);
+    const levels = slopeLevels(g, grid.spacing, values[c], { windowPoints: slopes[c].windowPoints, embryoSlopes: slopes[c].embryoSlopes }, slopes[c].polynomialOrder);
+    const own = regionSigma(sd.sd, levels.map((l) => levelEstimate(l)), null, { minSlopeSnr: settings.mask.minSlopeSnr, embryos: n }, region, nodes);
     const finite = (v: number) => (Number.isFinite(v) ? v : null);
     return {
       name,
       sigmaX: Array.from(curve.sigmaX, finite),
-      smallNoise: region ? finite(smallNoiseInformation(grid.x, curve.sigmaX, region.startIndex, region.endIndex)) : null,
-      direct: region ? finite(gaussianInformation(grid.x, sd.mean, sd.sd, region.startIndex, region.endIndex, settings.information.hermiteNodes)) : null,
+      smallNoise: finite(smallNoiseInformation(nodes.x, own.sigma, 0, last)),
+      direct: finite(gaussianInformation(nodes.x, onNodes(nodes, sd.mean), onNodes(nodes, sd.sd), 0, last, settings.information.hermiteNodes)),
     };
   });
   const correlations: JointPrecisionResult["correlations"] = [];
@@ -214,7 +217,7 @@ export function analyseJointPrecision(channels: readonly Channel[], options: Pre
         }),
       });
   let decoding: DecodingMap | null = null;
-  if (settings.decoding.enabled && region) {
+  if (settings.decoding.enabled) {
     progress(0.93, "decoding");
     const needed = settings.decoding.leaveOneOut ? K + 3 : K + 2;
     if (n >= needed) decoding = decodingMap(grid.x, values, region.startIndex, region.endIndex, settings.decoding.leaveOneOut, settings.decoding.poolPoints ?? slopes[0].windowPoints);
@@ -234,13 +237,13 @@ export function analyseJointPrecision(channels: readonly Channel[], options: Pre
     correlations,
     perChannel,
     mask: { reason, maskedPositions: Array.from(grid.x).filter((_, k) => masked[k]) },
-    minSigmaX,
+    sigmaXSummary,
     positionalInformation: {
       region,
-      smallNoise: region ? bootstrapEstimate(smallNoiseInformation(grid.x, joint, region.startIndex, region.endIndex), reps ? repSmall : null) : null,
-      direct: region ? bootstrapEstimate(directOf(moments), slow > 0 ? repDirect : null) : null,
+      smallNoise: centredEstimate(smallNoiseInformation(nodes.x, jointRegion.sigma, 0, last), reps ? repSmall : null, n, "linear"),
+      direct: bootstrapEstimate(directOf(moments), slow > 0 ? repDirect : null),
       note:
-        "Uniform prior over the region. Joint estimates need many more embryos than channels; direct estimates are biased upward " +
+        `Uniform prior over the region ${region.from}–${region.to} (${region.description}); positions whose slope no channel resolves count as carrying no information. Joint estimates need many more embryos than channels; direct estimates are biased upward ` +
         "with few embryos (Tkačik, Dubuis, Petkova, Gregor 2015, Genetics).",
     },
     covarianceInversionBias: Number.isFinite(bias) ? bias : null,
@@ -260,4 +263,33 @@ export function analyseJointPrecision(channels: readonly Channel[], options: Pre
     },
     warnings: warnings.list(),
   };
+}
+
+/** Joint mask: no usable covariance, no channel resolving a slope, or σ_x too large. */
+function jointMask(
+  joint: Float64Array,
+  slopes: readonly ArrayLike<number>[],
+  slopeSe: readonly ArrayLike<number>[],
+  covariances: readonly Matrix[],
+  rule: { minSlopeSnr: number; maxSigmaFraction: number },
+  span: number,
+): (MaskReason | null)[] {
+  return Array.from(joint, (v, k) => {
+    const resolved = slopes.some((s, c) => Math.abs(s[k]) > rule.minSlopeSnr * slopeSe[c][k] && s[k] !== 0);
+    if (!Number.isFinite(v) && covariances[k].some((row, c) => !(row[c] > 0))) return "no-variance";
+    if (!resolved) return "shallow-slope";
+    if (!(v <= rule.maxSigmaFraction * span)) return "imprecise";
+    return null;
+  });
+}
+
+/** Covariance matrices interpolated entry by entry onto the region's nodes, as the information integral does between grid points. */
+function covariancesOnNodes(covariances: readonly Matrix[], nodes: RegionNodes): Matrix[] {
+  return Array.from(nodes.x, (_, j) => {
+    const k = nodes.lower[j];
+    const t = nodes.t[j];
+    if (t === 0) return covariances[k];
+    if (t === 1) return covariances[k + 1];
+    return covariances[k].map((row, r) => row.map((v, c) => (1 - t) * v + t * covariances[k + 1][r][c]));
+  });
 }

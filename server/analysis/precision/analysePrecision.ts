@@ -7,8 +7,8 @@ import type { EmbryoNormalisation, NormalisationMethod } from "../ensemble/norma
 import { prepareEnsemble, type OrientationReport, type PreparedEnsemble } from "../ensemble/prepareEnsemble.ts";
 import type { Coordinates, Profile } from "../ensemble/profile.ts";
 import { createRandom } from "../random/seededRandom.ts";
-import { chooseRegion, type AnalysisRegion } from "./analysisRegion.ts";
-import { bootstrapEstimate, withLengthUnits, type BootstrapEstimate, type ReplicateUse, type ScaledEstimate } from "./bootstrapEstimate.ts";
+import { onNodes, regionNodes, stateRegion, type AnalysisRegion } from "./analysisRegion.ts";
+import { bootstrapEstimate, centredEstimate, withLengthUnits, type BootstrapEstimate, type ReplicateUse, type ScaledEstimate } from "./bootstrapEstimate.ts";
 import { bootstrapPrecision, type BootstrapReplicates } from "./bootstrapPrecision.ts";
 import { boundaryCrossings, firstCrossing } from "./boundaryVariability.ts";
 import { decodingMap, type DecodingMap } from "./decodingMap.ts";
@@ -20,7 +20,9 @@ import { positionalErrorCurve, type MaskReason } from "./positionalError.ts";
 import { PrecisionOptions, type PrecisionOptionsInput, type PrecisionSettings } from "./precisionOptions.ts";
 import { sampleSizeExtrapolation, type SampleSizeExtrapolation } from "./sampleSizeExtrapolation.ts";
 import { scalingComparison, type ScalingComparison } from "./scalingComparison.ts";
-import { meanSigma, minimumSigma, sigmaAt } from "./sigmaSummaries.ts";
+import { effectiveSigma, regionSigma } from "./regionSigma.ts";
+import { levelEstimate, slopeLevels } from "./slopeLevels.ts";
+import { sigmaAt } from "./sigmaSummaries.ts";
 import { smallNoiseInformation } from "./smallNoiseInformation.ts";
 
 /** Threshold crossings across embryos compared with σ_x at the boundary. */
@@ -45,14 +47,27 @@ export interface BoundaryResult {
   ratio: number | null;
 }
 
+/** The headline positional error: one number for the stated region, with an interval that contains it. */
+export interface SigmaXSummary extends ScaledEstimate {
+  method: "geometric mean over the region";
+  /** What the number is and how unreliable positions inside the region were handled, in words. */
+  description: string;
+  /** Grid positions inside the region counted as carrying no positional information (σ_x set to L/√(2πe)). */
+  cappedPositions: number;
+  /** Grid positions inside the region without spread across embryos, filled from their neighbours. */
+  filledPositions: number;
+  /** Grid positions inside the region. */
+  regionPositions: number;
+}
+
 export interface PositionalInformationResult {
-  /** Region integrated over, with a uniform prior on it; null when no region could be chosen. */
-  region: AnalysisRegion | null;
-  /** Small-noise approximation (bits), bootstrap CI and bias. */
+  /** Region integrated over, with a uniform prior on it: the same for every summary of this result. */
+  region: AnalysisRegion;
+  /** Small-noise approximation (bits) from the region's σ_x; interval centred on the value (bootstrap SE, t quantile). */
   smallNoise: BootstrapEstimate | null;
-  /** Direct estimate with Gaussian P(c|x) (bits), bootstrap CI and bias. */
+  /** Direct estimate with Gaussian P(c|x) (bits) from all embryos: biased upward at finite n; percentile interval. Not a headline. */
   direct: BootstrapEstimate | null;
-  /** Direct estimate extrapolated to infinitely many embryos; null when not requested or not possible. */
+  /** The headline direct estimate: extrapolated to infinitely many embryos, with its interval from the subsample spread; null below 12 embryos or when not requested. */
   directExtrapolated: SampleSizeExtrapolation | null;
   /** Direct estimate with kernel-density P(c|x) (bits); null unless requested. */
   kernelDensity: BootstrapEstimate | null;
@@ -85,10 +100,9 @@ export interface PrecisionResult {
     counts: Record<MaskReason, number>;
     rule: { minSlopeSnr: number; maxSigmaFraction: number };
   };
-  minSigmaX: (ScaledEstimate & { position: number; positionCi95: [number, number] | null }) | null;
+  /** Headline σ_x over the stated region (see SigmaXSummary); null when σ_x is unusable everywhere in it. */
+  sigmaXSummary: SigmaXSummary | null;
   sigmaXAtPositions: { position: number; sigmaX: ScaledEstimate | null }[];
-  /** (1/L)∫σ_x dx over the region. */
-  meanSigmaX: ScaledEstimate | null;
   boundary: BoundaryResult | null;
   positionalInformation: PositionalInformationResult;
   decoding: DecodingMap | null;
@@ -117,9 +131,13 @@ export interface PrecisionResult {
       description: string;
       /** Model only: RMS of (model − mean)/(SE of the mean) over the grid. */
       modelDeviationRms: number | null;
+      /** Model only: whether bootstrap resamples refit the model (true) or hold its slope fixed. */
+      refitInResamples: boolean | null;
     };
     mask: { minSlopeSnr: number; maxSigmaFraction: number };
+    /** The region as requested (null when the default was used) and how the default is made. */
     region: [number, number] | null;
+    regionDefault: PrecisionSettings["regionDefault"];
     bootstrap: { resamples: number; seed: number; slowResamples: number };
     information: PrecisionSettings["information"];
     decoding: PrecisionSettings["decoding"];
@@ -166,9 +184,14 @@ export function runPrecision(group: readonly Profile[], settings: PrecisionSetti
   const slope = meanSlope(grid.x, grid.spacing, values, settings.derivative);
   const curve = positionalErrorCurve(grid.x, moments.sd, slope.slope, slope.slopeSe, settings.mask);
   const masked = curve.mask.map((r) => r !== null);
-  const region = chooseRegion(grid.x, masked, settings.region);
+  const region = stateRegion(grid.x, grid.range, settings.region, settings.regionDefault);
+  const nodes = regionNodes(grid.x, region);
+  const sigmaRule = { minSlopeSnr: settings.mask.minSlopeSnr, embryos: n };
+  const levels = slopeLevels(grid.x.length, grid.spacing, values, { windowPoints: slope.windowPoints, embryoSlopes: slope.embryoSlopes }, slope.polynomialOrder);
+  const inRegion = regionSigma(moments.sd, levels.map((l) => levelEstimate(l)), slope.method === "model" ? slope.slope : null, sigmaRule, region, nodes);
   const modelDeviationRms = slope.modelValue ? modelDeviation(slope.modelValue, moments.mean, moments.sd, n) : null;
-  noteSettings(warnings, settings, prepared, curve.mask, region, modelDeviationRms, n);
+  noteSettings(warnings, settings, prepared, curve.mask, modelDeviationRms, n);
+  noteRegion(warnings, region, inRegion);
 
   const boundarySetup = chooseThreshold(settings, grid.x, moments.mean, region, warnings);
   const crossings = boundarySetup ? boundaryCrossings(grid.x, embryos, values, boundarySetup.threshold) : null;
@@ -182,10 +205,12 @@ export function runPrecision(group: readonly Profile[], settings: PrecisionSetti
       {
         gridX: grid.x,
         values,
-        embryoSlopes: slope.embryoSlopes,
-        modelSlope: slope.method === "model" ? slope.slope : null,
-        masked,
+        levels,
+        model: slope.method === "model" ? { refit: settings.derivative.refit ?? null, fixed: slope.slope } : null,
+        mask: settings.mask,
         region,
+        nodes,
+        regionValues: settings.information.kernelDensity ? values.map((v) => onNodes(nodes, v)) : [],
         positions: settings.positions,
         crossings: crossings ? crossings.positions.map((p) => p.position) : null,
         boundaryAt: meanProfileCrossing,
@@ -203,41 +228,42 @@ export function runPrecision(group: readonly Profile[], settings: PrecisionSetti
   const estimateOf = (value: number, reps: ArrayLike<number> | null | undefined) => bootstrapEstimate(value, reps ?? null, use);
 
   const sigmaX = curve.sigmaX;
-  const sigmaXCi95 = Array.from(sigmaX, (v, k) => (Number.isFinite(v) && replicates ? estimateOf(v, replicates.sigmaX[k])?.ci95 ?? null : null));
+  // The band is drawn point by point; a resample that masks a point near the mask's threshold is
+  // simply left out there (not counted in the dropped-resample warning, which is about summaries).
+  const sigmaXCi95 = Array.from(sigmaX, (v, k) => (Number.isFinite(v) && replicates ? bootstrapEstimate(v, replicates.sigmaX[k])?.ci95 ?? null : null));
 
-  let minSigmaX: PrecisionResult["minSigmaX"] = null;
-  let meanSigmaX: ScaledEstimate | null = null;
-  let smallNoise: BootstrapEstimate | null = null;
-  let direct: BootstrapEstimate | null = null;
-  let kernelDensity: BootstrapEstimate | null = null;
+  const last = nodes.x.length - 1;
+  const regionMean = onNodes(nodes, moments.mean);
+  const regionSd = onNodes(nodes, moments.sd);
+  const sigmaXSummary = summariseSigma(
+    scaled(centredEstimate(effectiveSigma(nodes.x, inRegion.sigma), replicates?.effectiveSigma ?? null, n, "log", use)),
+    region,
+    inRegion,
+    settings.coords,
+  );
+  const smallNoise = centredEstimate(smallNoiseInformation(nodes.x, inRegion.sigma, 0, last), replicates?.smallNoise ?? null, n, "linear", use);
+  const direct = estimateOf(gaussianInformation(nodes.x, regionMean, regionSd, 0, last, settings.information.hermiteNodes), replicates?.direct);
+  const kernelDensity = settings.information.kernelDensity
+    ? estimateOf(kernelInformation(nodes.x, values.map((v) => onNodes(nodes, v)), 0, last), replicates?.kernelDensity)
+    : null;
   let directExtrapolated: SampleSizeExtrapolation | null = null;
-  if (region) {
-    const min = minimumSigma(sigmaX, region.startIndex, region.endIndex);
-    const minEstimate = scaled(estimateOf(min.value, replicates?.minimum));
-    if (minEstimate) {
-      const positionCi = replicates ? bootstrapEstimate(grid.x[min.index], replicates.minimumPosition)?.ci95 ?? null : null;
-      minSigmaX = { ...minEstimate, position: grid.x[min.index], positionCi95: positionCi };
-    }
-    meanSigmaX = scaled(estimateOf(meanSigma(grid.x, sigmaX, region.startIndex, region.endIndex), replicates?.meanSigma));
-    smallNoise = estimateOf(smallNoiseInformation(grid.x, sigmaX, region.startIndex, region.endIndex), replicates?.smallNoise);
-    direct = estimateOf(
-      gaussianInformation(grid.x, moments.mean, moments.sd, region.startIndex, region.endIndex, settings.information.hermiteNodes),
-      replicates?.direct,
+  if (settings.information.extrapolate) {
+    progress(STAGES.extrapolate, "information extrapolation");
+    directExtrapolated = sampleSizeExtrapolation(
+      n,
+      (idx) => {
+        const m = ensembleMoments(values, idx);
+        return gaussianInformation(nodes.x, onNodes(nodes, m.mean), onNodes(nodes, m.sd), 0, last, settings.information.hermiteNodes);
+      },
+      settings.information.extrapolationRepeats,
+      random,
     );
-    if (settings.information.kernelDensity)
-      kernelDensity = estimateOf(kernelInformation(grid.x, values, region.startIndex, region.endIndex), replicates?.kernelDensity);
-    if (settings.information.extrapolate) {
-      progress(STAGES.extrapolate, "information extrapolation");
-      directExtrapolated = sampleSizeExtrapolation(
-        n,
-        (idx) => {
-          const m = ensembleMoments(values, idx);
-          return gaussianInformation(grid.x, m.mean, m.sd, region.startIndex, region.endIndex, settings.information.hermiteNodes);
-        },
-        settings.information.extrapolationRepeats,
-        random,
+    if (directExtrapolated.extrapolated === null)
+      warnings.add(
+        "direct-not-extrapolated",
+        `The direct information estimate cannot be corrected for its small-sample bias with ${n} embryos (the extrapolation needs at least 12); the raw direct value reads high`,
+        "Read the small-noise value, or image more embryos.",
       );
-    }
   }
 
   const sigmaXAtPositions = settings.positions.map((position, p) => ({
@@ -269,7 +295,7 @@ export function runPrecision(group: readonly Profile[], settings: PrecisionSetti
   }
 
   let decoding: DecodingMap | null = null;
-  if (settings.decoding.enabled && region) {
+  if (settings.decoding.enabled) {
     progress(STAGES.decoding, "decoding");
     const needed = settings.decoding.leaveOneOut ? 4 : 3;
     if (n >= needed) decoding = decodingMap(grid.x, [values], region.startIndex, region.endIndex, settings.decoding.leaveOneOut, settings.decoding.poolPoints ?? slope.windowPoints);
@@ -280,21 +306,18 @@ export function runPrecision(group: readonly Profile[], settings: PrecisionSetti
   const scaling = meanLengthUm === null ? null : scalingStep(settings, prepared, crossings, warnings);
   const outliers = outlierStep(settings, prepared, crossings, warnings);
 
-  const biased = [
-    ["minimum σ_x", minSigmaX],
-    ["small-noise information", smallNoise],
-    ["direct information", direct],
-    ["kernel-density information", kernelDensity],
-  ].filter(([, e]) => {
-    const b = e as BootstrapEstimate | null;
-    return b !== null && b.bias !== null && b.se !== null && Math.abs(b.bias) > b.se;
-  });
+  const biased = (
+    [
+      ["raw direct information", direct],
+      ["kernel-density information", kernelDensity],
+    ] as const
+  ).filter(([, b]) => b !== null && b.bias !== null && b.se !== null && Math.abs(b.bias) > b.se);
   if (biased.length > 0)
     warnings.add(
       "bootstrap-bias",
-      `The bootstrap replicates of ${biased.map(([name]) => name).join(", ")} are shifted from the estimate by more than their spread: ` +
-        `these statistics are biased at ${n} embryos and their percentile intervals may not contain the estimate`,
-      "Read the bias field; for information, prefer the value extrapolated to infinitely many embryos; image more embryos.",
+      `The bootstrap replicates of the ${biased.map(([name]) => name).join(" and ")} lie above the estimate by more than their spread: ` +
+        "a direct estimate from a finite number of embryos is biased upward, so its percentile interval can miss its own value",
+      "Read the direct value extrapolated to infinitely many embryos, which is the headline direct estimate.",
     );
   const dropped = use.filter((u) => u.dropped > 0.05 * (u.used + u.dropped));
   if (dropped.length > 0)
@@ -326,9 +349,8 @@ export function runPrecision(group: readonly Profile[], settings: PrecisionSetti
       counts,
       rule: { ...settings.mask },
     },
-    minSigmaX,
+    sigmaXSummary,
     sigmaXAtPositions,
-    meanSigmaX,
     boundary,
     positionalInformation: {
       region,
@@ -337,9 +359,9 @@ export function runPrecision(group: readonly Profile[], settings: PrecisionSetti
       directExtrapolated,
       kernelDensity,
       note:
-        "Uniform prior over the region; masked positions are outside it. The small-noise approximation reads slightly low on a bounded region " +
-        "(by a few σ_x/L bits); direct estimates from a finite number of embryos are biased upward (Tkačik, Dubuis, Petkova, Gregor 2015, Genetics) — " +
-        "compare with the value extrapolated to infinitely many embryos.",
+        `Uniform prior over the region ${region.from}–${region.to} (${region.description}); positions inside it whose slope is not resolved count as carrying no information. ` +
+        "The small-noise approximation reads slightly low on a bounded region (by a few σ_x/L bits); the direct estimate from a finite number of embryos is biased upward, " +
+        "so the direct headline is the value extrapolated to infinitely many embryos (Tkačik, Dubuis, Petkova, Gregor 2015, Genetics).",
     },
     decoding,
     scaling,
@@ -365,12 +387,14 @@ export function runPrecision(group: readonly Profile[], settings: PrecisionSetti
         polynomialOrder: slope.polynomialOrder,
         description:
           slope.method === "model"
-            ? "slope of the caller's model curve, held fixed in bootstrap resamples"
+            ? `slope of the caller's model curve, ${settings.derivative.refit ? "refitted in every bootstrap resample" : "held fixed in bootstrap resamples"}`
             : `Savitzky–Golay derivative of the mean profile, ${slope.windowPoints}-point window, order ${slope.polynomialOrder}`,
         modelDeviationRms,
+        refitInResamples: slope.method === "model" ? settings.derivative.refit !== undefined : null,
       },
       mask: { ...settings.mask },
       region: settings.region,
+      regionDefault: { ...settings.regionDefault },
       bootstrap: { ...settings.bootstrap },
       information: { ...settings.information },
       decoding: { ...settings.decoding },
@@ -378,6 +402,47 @@ export function runPrecision(group: readonly Profile[], settings: PrecisionSetti
     },
     warnings: warnings.list(),
   };
+}
+
+const fmt = (v: number) => String(Number(v.toPrecision(6)));
+
+function summariseSigma(
+  e: ScaledEstimate | null,
+  region: AnalysisRegion,
+  inRegion: ReturnType<typeof regionSigma>,
+  coords: PrecisionSettings["coords"],
+): SigmaXSummary | null {
+  if (!e) return null;
+  const unit = coords === "absolute" ? "µm" : "of length";
+  return {
+    ...e,
+    method: "geometric mean over the region",
+    description:
+      `Geometric mean of σ_x over ${fmt(region.from)}–${fmt(region.to)} ${unit} (the constant σ_x carrying the same small-noise positional information), ` +
+      "with the small-sample bias of ln σ_x removed; positions whose slope is not resolved count as σ_x = L/√(2πe) (no information). " +
+      "Interval: bootstrap over embryos, t interval on the log scale centred on the value.",
+    cappedPositions: inRegion.capped,
+    filledPositions: inRegion.filled,
+    regionPositions: region.endIndex - region.startIndex + 1,
+  };
+}
+
+/** Say how much of the region could not be used as measured. */
+function noteRegion(warnings: WarningList, region: AnalysisRegion, inRegion: ReturnType<typeof regionSigma>): void {
+  const total = region.endIndex - region.startIndex + 1;
+  if (inRegion.capped > 0)
+    warnings.add(
+      "region-unresolved",
+      `${inRegion.capped} of ${total} grid positions in the region ${fmt(region.from)}–${fmt(region.to)} have a slope the data cannot resolve or σ_x above L/√(2πe); ` +
+        "they count as carrying no positional information, which lowers the information and raises the headline σ_x",
+      "If those positions lie outside the patterned part of the axis, state a narrower region (region FROM:TO); more embryos resolve shallower slopes.",
+    );
+  if (inRegion.filled > 0)
+    warnings.add(
+      "region-no-variance",
+      `${inRegion.filled} grid positions in the region have no spread across embryos (e.g. pinned by normalisation); their σ_x was interpolated from their neighbours`,
+      'Use normalisation "none" or "scale-offset", or a region that avoids the pinned points.',
+    );
 }
 
 /** RMS over the grid of (model − mean)/(SE of the mean): how far the model misses the data. */
@@ -397,7 +462,6 @@ function noteSettings(
   settings: PrecisionSettings,
   prepared: PreparedEnsemble,
   mask: (MaskReason | null)[],
-  region: AnalysisRegion | null,
   modelDeviationRms: number | null,
   n: number,
 ): void {
@@ -421,12 +485,6 @@ function noteSettings(
       `σ_x is not reported at ${maskedCount} of ${mask.length} grid positions (flat gradient, no spread or σ_x too large)`,
       "See mask.reason; the masking rule (minimal slope signal-to-noise, largest σ_x as a fraction of the span) can be changed in the mask settings.",
     );
-  if (!region)
-    warnings.add(
-      "no-region",
-      "No run of at least 3 unmasked grid positions: positional information, minimum σ_x and decoding are not available",
-      "Use a finer grid, a larger region, or relax the masking rule.",
-    );
   if (modelDeviationRms !== null && modelDeviationRms > 3)
     warnings.add(
       "model-mismatch",
@@ -443,13 +501,13 @@ function chooseThreshold(
   settings: PrecisionSettings,
   gridX: Float64Array,
   mean: Float64Array,
-  region: AnalysisRegion | null,
+  region: AnalysisRegion,
   warnings: WarningList,
 ): Pick<BoundaryResult, "threshold" | "thresholdSource" | "levelPosition"> | null {
   if (settings.boundary.threshold !== null)
     return { threshold: settings.boundary.threshold, thresholdSource: "given", levelPosition: null };
   const g = gridX.length;
-  const position = settings.boundary.atPosition ?? (region ? 0.5 * (region.from + region.to) : 0.5 * (gridX[0] + gridX[g - 1]));
+  const position = settings.boundary.atPosition ?? 0.5 * (region.from + region.to);
   if (position < gridX[0] || position > gridX[g - 1]) {
     warnings.add(
       "boundary-position-outside",

@@ -3,6 +3,9 @@ import { z } from "zod";
 /** A model curve for the group mean, e.g. the group's exponential fit: value and slope at each grid position. */
 export type SlopeModel = (xs: number[]) => { value: number[]; slope: number[] };
 
+/** Refits the model to a mean profile (one per bootstrap resample): the slope at each grid position, or null when the fit fails. */
+export type SlopeRefit = (xs: number[], mean: number[]) => ArrayLike<number> | null;
+
 /** Called during long computations with the fraction done (0 … 1) and the stage name. */
 export type ProgressCallback = (fraction: number, stage: string) => void;
 
@@ -45,6 +48,11 @@ export const PrecisionOptions = z.object({
       polynomialOrder: z.int().min(1).max(6).default(3),
       /** Required when method is "model": (xs) => { value, slope } at the grid positions. */
       slopeModel: z.custom<SlopeModel>((v) => typeof v === "function", { message: "slopeModel must be a function (xs) => { value, slope }" }).optional(),
+      /**
+       * Model only: refits the model to each bootstrap resample's mean, so the intervals include
+       * the model's own uncertainty; without it the model slope is held fixed in the resamples.
+       */
+      refit: z.custom<SlopeRefit>((v) => typeof v === "function", { message: "refit must be a function (xs, mean) => slope" }).optional(),
     })
     .refine((d) => d.method !== "model" || d.slopeModel !== undefined, {
       message: 'slopeModel is required when method is "model"',
@@ -67,11 +75,22 @@ export const PrecisionOptions = z.object({
     })
     .prefault({}),
   /**
-   * Region for positional information, mean σ_x and decoding: [from, to]; null (default) for
-   * the longest run of unmasked grid positions. Masked positions inside a requested region
-   * shrink it to its longest unmasked run.
+   * Region for positional information, the headline σ_x and decoding: [from, to] in grid units,
+   * inside the grid; null (default) for the default region below. The region never shrinks:
+   * positions inside it whose slope is not resolved count as carrying no information.
    */
   region: Interval.nullable().default(null),
+  regionDefault: z
+    .object({
+      /**
+       * Span the default region is cut from: null (default) for the range covered by every
+       * profile of this group; a caller analysing several groups passes the span covered by all of them.
+       */
+      span: Interval.nullable().default(null),
+      /** Fraction of the span cut from each end; 0.1 by default (see analysisRegion.ts). */
+      trimFraction: z.number().min(0).max(0.45).default(0.1),
+    })
+    .prefault({}),
   /** Positions at which σ_x is reported; none by default. */
   positions: z.array(z.number()).default([]),
   boundary: z
@@ -90,8 +109,8 @@ export const PrecisionOptions = z.object({
       kernelDensity: z.boolean().default(false),
       /** Extrapolate the direct estimate to infinitely many embryos from subsamples; true by default. */
       extrapolate: z.boolean().default(true),
-      /** Random subsamples per size for the extrapolation; 5 by default. */
-      extrapolationRepeats: z.int().min(1).max(100).default(5),
+      /** Random subsamples per size for the extrapolation and its interval; 10 by default. */
+      extrapolationRepeats: z.int().min(2).max(100).default(10),
     })
     .prefault({}),
   bootstrap: z
@@ -102,7 +121,7 @@ export const PrecisionOptions = z.object({
       seed: z.int().default(1),
       /**
        * Resamples (the first ones, at most `resamples`) that also compute the slow estimates —
-       * kernel-density and multi-channel direct information; 200 by default.
+       * the raw direct, kernel-density and multi-channel direct information; 200 by default.
        */
       slowResamples: z.int().min(0).max(100000).default(200),
     })

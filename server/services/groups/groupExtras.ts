@@ -6,7 +6,8 @@ import type { GroupExtras } from "../../analysis/compare/compareOptions.ts";
 /**
  * Results of earlier group analyses that a comparison can use, per genotype:
  * the newest global fit's λ (same channel and fit setting) and the newest absolute-
- * coordinate precision analysis's minimal σ_x.
+ * coordinate precision analysis's headline σ_x (its geometric mean over the stated region; the raw
+ * minimum of older analyses is biased low and is not used).
  */
 export function storedGroupExtras(db: Db, channel: string, settingHash: string): Record<string, GroupExtras> {
   const extras: Record<string, GroupExtras> = {};
@@ -24,7 +25,7 @@ export function storedGroupExtras(db: Db, channel: string, settingHash: string):
     const settings = a.settings as { coords?: string };
     if (!sel.genotype || sel.channels?.[0] !== channel || settings.coords !== "absolute" || extras[sel.genotype]?.sigmaXMinUm) continue;
     const full = getAnalysis(db, a.id)!;
-    const min = (full.result as { perChannel: { result: { minSigmaX: { value: number; se: number | null; ci95: [number, number] | null } | null } }[] }).perChannel[0]?.result.minSigmaX;
+    const min = (full.result as { perChannel: { result: { sigmaXSummary?: { value: number; se: number | null; ci95: [number, number] | null } | null } }[] }).perChannel[0]?.result.sigmaXSummary;
     if (min) (extras[sel.genotype] ??= {}).sigmaXMinUm = { value: min.value, se: min.se, ci95: min.ci95 };
   }
   return extras;

@@ -19,16 +19,26 @@ export const PrecisionRequest = z.object({
   range: z.tuple([z.number(), z.number()]).optional(),
   /** Slope of the mean: Savitzky–Golay smoothing of the mean, or an exponential fitted to the mean ("model"). */
   derivative: z.enum(["savitzky-golay", "model"]).default("savitzky-golay"),
-  /** Fit window for the "model" derivative, in grid units. */
-  modelWindow: z.tuple([z.number(), z.number()]).optional(),
+  /**
+   * Fit window of the "model" derivative in grid units (µm, or fraction with relative coords), either
+   * end optional as with fit's window; by default the information region, so the model is never
+   * fitted through a source plateau or the far-end background.
+   */
+  modelWindow: z
+    .object({ from: z.number().optional(), to: z.number().optional() })
+    .refine((w) => w.from === undefined || w.to === undefined || w.from < w.to, { message: "the window's start must be below its end" })
+    .optional(),
   /** Boundary threshold intensity (after normalisation). */
   threshold: z.number().optional(),
   /** Or: the threshold is the mean's level at this position. */
   atPosition: z.number().optional(),
   /** Positions at which to report σ_x. */
   positions: z.array(z.number()).max(100).default([]),
-  /** Region [from, to] for positional information and mean σ_x. */
-  region: z.tuple([z.number(), z.number()]).optional(),
+  /**
+   * Region [from, to] (grid units) for positional information and the headline σ_x, the same for every
+   * group; by default the span covered by every profile of every selected group, trimmed by 10% at each end.
+   */
+  region: z.tuple([z.number(), z.number()]).refine(([a, b]) => a < b, { message: "the region's start must be below its end" }).optional(),
   /** Bootstrap resamples of whole embryos; 1000 by default. */
   bootstrap: z.number().int().min(0).max(100_000).default(1000),
   /** Seed of the bootstrap. */

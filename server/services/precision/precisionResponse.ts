@@ -1,10 +1,24 @@
 import type { StoredAnalysis } from "../../../db/analyses.ts";
 import type { PrecisionResult } from "../../analysis/precision/analysePrecision.ts";
+import type { AnalysisRegion } from "../../analysis/precision/analysisRegion.ts";
+import type { Estimate } from "../../analysis/estimate.ts";
 import type { PrecisionGroupOutput } from "./precisionTask.ts";
 
-/** The machine-readable summary of one group's precision analysis (lengths in µm unless coords are relative). */
+const estimate = (e: Estimate | null | undefined) => (e ? { value: e.value, se: e.se, ci95: e.ci95 } : null);
+
+/** The stated region in the JSON answer; null only for analyses stored before regions were stated. */
+export function informationRegion(region: AnalysisRegion | null | undefined, unit: string) {
+  return region ? { from: region.from, to: region.to, unit, source: region.source ?? "longest unmasked run", description: region.description ?? "chosen from the mask (older engine)" } : null;
+}
+
+/**
+ * The machine-readable summary of one group's precision analysis (lengths in µm unless coords are relative).
+ * Stable names scripts read: information_region {from, to, unit}, positional_information_bits.small_noise and
+ * .direct_extrapolated {value, ci95}, sigma_x_summary {value, ci95, method}.
+ */
 export function precisionSummary(analysisId: number, g: PrecisionGroupOutput, r: PrecisionResult, channel: string) {
   const pi = r.positionalInformation;
+  const summary = r.sigmaXSummary ?? null;
   return {
     analysis_id: analysisId,
     group: g.name,
@@ -19,11 +33,22 @@ export function precisionSummary(analysisId: number, g: PrecisionGroupOutput, r:
     sigma_x_ci95: r.sigmaXCi95,
     sigma_x_expected_relative_error: r.sigmaXExpectedRelativeError,
     masked_positions: r.mask.maskedPositions.length,
-    min_sigma_x: r.minSigmaX
-      ? { value: r.minSigmaX.value, se: r.minSigmaX.se, position: r.minSigmaX.position, ci95: r.minSigmaX.ci95, fraction_of_length: r.minSigmaX.fractionOfLength }
+    information_region: informationRegion(pi.region, r.unit),
+    sigma_x_summary: summary
+      ? {
+          value: summary.value,
+          se: summary.se,
+          ci95: summary.ci95,
+          method: summary.method,
+          description: summary.description,
+          unit: r.unit,
+          um: summary.um,
+          fraction_of_length: summary.fractionOfLength,
+          positions_without_information: summary.cappedPositions,
+          region_positions: summary.regionPositions,
+        }
       : null,
     sigma_x_at: r.sigmaXAtPositions.map((s) => ({ position: s.position, value: s.sigmaX?.value ?? null, ci95: s.sigmaX?.ci95 ?? null })),
-    mean_sigma_x: r.meanSigmaX ? { value: r.meanSigmaX.value, ci95: r.meanSigmaX.ci95 } : null,
     boundary: r.boundary
       ? {
           threshold: r.boundary.threshold,
@@ -39,12 +64,13 @@ export function precisionSummary(analysisId: number, g: PrecisionGroupOutput, r:
         }
       : null,
     positional_information_bits: {
-      small_noise: pi.smallNoise?.value ?? null,
-      direct: pi.direct?.value ?? null,
-      direct_extrapolated: pi.directExtrapolated?.extrapolated ?? null,
-      kernel_density: pi.kernelDensity?.value ?? null,
-      ci95: { small_noise: pi.smallNoise?.ci95 ?? null, direct: pi.direct?.ci95 ?? null, kernel_density: pi.kernelDensity?.ci95 ?? null },
-      region: pi.region,
+      small_noise: estimate(pi.smallNoise),
+      direct_extrapolated: estimate(pi.directExtrapolated?.extrapolated),
+      direct_raw: pi.direct ? { ...estimate(pi.direct)!, bias: pi.direct.bias, note: "all embryos, no correction: biased upward at finite n; not a headline" } : null,
+      kernel_density: estimate(pi.kernelDensity),
+      extrapolation: pi.directExtrapolated
+        ? { bias_slope_bits_x_embryos: pi.directExtrapolated.biasSlope, spread: pi.directExtrapolated.spread ?? [], subsample_sizes: [...new Set(pi.directExtrapolated.points.map((p) => p.embryos))] }
+        : null,
       note: pi.note,
     },
     normalisation: r.normalisation.method,
@@ -78,8 +104,14 @@ export function precisionGroupResponse(analysisId: number, g: PrecisionGroupOutp
           sigma_x: g.joint.sigmaX,
           sigma_x_ci95: g.joint.sigmaXCi95,
           sigma_x_ignoring_correlations: g.joint.sigmaXIgnoringCorrelations,
-          min_sigma_x: g.joint.minSigmaX ? { value: g.joint.minSigmaX.value, position: g.joint.minSigmaX.position, ci95: g.joint.minSigmaX.ci95 } : null,
-          positional_information_bits: { small_noise: g.joint.positionalInformation.smallNoise?.value ?? null, direct: g.joint.positionalInformation.direct?.value ?? null, ci95: { small_noise: g.joint.positionalInformation.smallNoise?.ci95 ?? null, direct: g.joint.positionalInformation.direct?.ci95 ?? null } },
+          information_region: informationRegion(g.joint.positionalInformation.region, g.joint.unit),
+          sigma_x_summary: g.joint.sigmaXSummary
+            ? { value: g.joint.sigmaXSummary.value, se: g.joint.sigmaXSummary.se, ci95: g.joint.sigmaXSummary.ci95, method: g.joint.sigmaXSummary.method }
+            : null,
+          positional_information_bits: {
+            small_noise: estimate(g.joint.positionalInformation.smallNoise),
+            direct_raw: estimate(g.joint.positionalInformation.direct),
+          },
           note: g.joint.positionalInformation.note,
         }
       : null,

@@ -58,18 +58,21 @@ describe("analysePrecision", () => {
     expect(r.coords).toBe("absolute");
   });
 
-  it("summarises σ_x: minimum with its position, values at chosen positions and the regional mean, in µm and fraction of length", () => {
-    // Source: σ_x = λ·CV for this simulation (METHODS.md §4 [derived]); λ = 80 µm, CV = 0.12.
+  it("summarises σ_x over the stated default region: the headline is within 5% of λ·CV, its interval contains it, and values at chosen positions interpolate the curve", () => {
+    // Source: σ_x = λ·CV for this simulation (METHODS.md §4 [derived]); λ = 80 µm, CV = 0.12 → 9.6 µm.
     const r = analysePrecision(group, { ...quick, positions: [101, 200] });
-    const k = r.gridX.indexOf(r.minSigmaX!.position);
-    expect(r.minSigmaX!.value).toBe(r.sigmaX[k]);
-    expect(Math.min(...(r.sigmaX.filter((v) => v !== null) as number[]))).toBe(r.minSigmaX!.value);
-    expect(r.minSigmaX!.ci95).not.toBeNull();
-    expect(r.minSigmaX!.fractionOfLength!.value).toBeCloseTo(r.minSigmaX!.value / 400, 12);
+    const region = r.positionalInformation.region;
+    // common practice, no source: the default region is the covered span 0–400 µm trimmed by 10% at each end.
+    expect([region.from, region.to, region.source]).toEqual([40, 360, "default"]);
+    const s = r.sigmaXSummary!;
+    expect(s.method).toBe("geometric mean over the region");
+    expect(Math.abs(s.value / (80 * 0.12) - 1)).toBeLessThan(0.05);
+    expect(s.ci95![0]).toBeLessThan(s.value);
+    expect(s.ci95![1]).toBeGreaterThan(s.value);
+    expect(s.fractionOfLength!.value).toBeCloseTo(s.value / 400, 12);
     const at101 = r.sigmaXAtPositions[0].sigmaX!.value;
     const k100 = r.gridX.indexOf(100);
     expect(at101).toBeCloseTo(0.5 * ((r.sigmaX[k100] as number) + (r.sigmaX[k100 + 1] as number)), 12);
-    expect(Math.abs(r.meanSigmaX!.value / (80 * 0.12) - 1)).toBeLessThan(0.15);
   });
 
   it("is reproducible from its seed, and a different seed changes only the bootstrap intervals", () => {

@@ -51,6 +51,6 @@ result = {"slope": r.slope, "stderr": r.stderr, "intercept": r.intercept}
     // Scaling profiles are more precise in relative coordinates: the spread in µm comes from embryo size.
     expect(scaling.minimumUm.relative!).toBeLessThan(scaling.minimumUm.absolute!);
     expect(r.unit).toBe("fraction of length");
-    expect(r.minSigmaX!.um!.value).toBeCloseTo(r.minSigmaX!.value * r.meanLengthUm!, 10);
+    expect(r.sigmaXSummary!.um!.value).toBeCloseTo(r.sigmaXSummary!.value * r.meanLengthUm!, 10);
   });
 });

@@ -118,7 +118,7 @@ result = {"trapezoid": float(np.log2(L) - integrate.trapezoid(f, x) / L), "simps
 
 describe("positional information from simulated embryos", () => {
   it("analysePrecision: small-noise and direct agree within 0.1 bit and both match the closed form for constant σ_x = 4 µm ≪ L (200 embryos)", () => {
-    const r = analysePrecision(linearGroup(200, 4, 21), { bootstrap: { resamples: 100 }, decoding: { enabled: false }, information: { extrapolate: false } });
+    const r = analysePrecision(linearGroup(200, 4, 21), { region: [0, 400], bootstrap: { resamples: 100 }, decoding: { enabled: false }, information: { extrapolate: false } });
     const pi = r.positionalInformation;
     expect(pi.region?.length).toBe(400);
     const small = pi.smallNoise!.value;
@@ -132,7 +132,7 @@ describe("positional information from simulated embryos", () => {
 
   it("analysePrecision: small-noise and direct agree within 0.1 bit for an exponential gradient with σ_x = λ·CV = 8 µm", () => {
     const group = exponentialGroup({ embryos: 200, lambdaUm: 80, cv: 0.1, noise: "pointwise", seed: 22 });
-    const r = analysePrecision(group, { bootstrap: { resamples: 0 }, decoding: { enabled: false }, information: { extrapolate: false } });
+    const r = analysePrecision(group, { region: [0, 400], bootstrap: { resamples: 0 }, decoding: { enabled: false }, information: { extrapolate: false } });
     const pi = r.positionalInformation;
     expect(Math.abs(pi.smallNoise!.value - pi.direct!.value)).toBeLessThan(0.1);
     expect(Math.abs(pi.smallNoise!.value - closedForm(8))).toBeLessThan(0.1);
@@ -142,6 +142,7 @@ describe("positional information from simulated embryos", () => {
     // Source: Tkačik et al. 2015, Genetics — both estimate the same I when P(c|x) is Gaussian; the kernel
     // estimate carries a larger upward small-sample bias.
     const r = analysePrecision(linearGroup(200, 4, 23), {
+      region: [0, 400],
       bootstrap: { resamples: 20, slowResamples: 20 },
       decoding: { enabled: false },
       information: { kernelDensity: true, extrapolate: false },
@@ -180,7 +181,7 @@ result = h - 0.5 * np.log2(2 * np.pi * np.e * s * s)
       null,
     );
     const runs = Array.from({ length: 20 }, (_, i) =>
-      analysePrecision(linearGroup(40, 4, 100 + i), { bootstrap: { resamples: 0 }, decoding: { enabled: false }, information: { extrapolationRepeats: 8 } })
+      analysePrecision(linearGroup(40, 4, 100 + i), { region: [0, 400], bootstrap: { resamples: 0 }, decoding: { enabled: false }, information: { extrapolationRepeats: 8 } })
         .positionalInformation,
     );
     const meanOf = (f: (pi: (typeof runs)[number]) => number) => runs.reduce((s, pi) => s + f(pi), 0) / runs.length;
