@@ -8,5 +8,8 @@ export default defineConfig({
     testTimeout: 180_000,
     hookTimeout: 180_000,
     pool: "forks",
+    // Commands the tests start run the TypeScript sources, never a dist/ left by an earlier build;
+    // test/cli/compiledBuild.test.ts builds and checks the compiled output itself.
+    env: { MORPHOGAUGE_FROM_SOURCE: "1" },
   },
 });
