@@ -10,7 +10,10 @@ export interface BuildUpFigureInput {
   k_per_s: EstimateInput | null;
   lambda_um: EstimateInput | null;
   accumulation_time_s: readonly (EstimateInput & { x_um: number })[];
-  profile_likelihood_k: readonly { k_per_s: number; deviance: number }[];
+  /** Correlation of the D and k estimates (null when the fit gives none). */
+  correlation_D_k: number | null;
+  /** Along the profile of k, D is re-fitted at each k. */
+  profile_likelihood_k: readonly { k_per_s: number; deviance: number; D_um2_per_s?: number }[];
   profile_interval_k: readonly [number | null, number | null] | null;
   points: readonly { x_um: number; t_s: number; value: number; fitted: number }[];
 }

@@ -11,6 +11,7 @@ import { sigmaXFigure } from "./sigmaXFigure.ts";
 import { trendFigure } from "./trendFigure.ts";
 import { buildUpFigure, buildUpResidualFigure } from "./buildUpFigure.ts";
 import { profileLikelihoodFigure } from "./profileLikelihoodFigure.ts";
+import { dkRegionFigure } from "./dkRegionFigure.ts";
 import { accumulationTimeFigure } from "./accumulationTimeFigure.ts";
 import { frapRecoveryFigure, frapResidualFigure } from "./frapRecoveryFigure.ts";
 import { simulationFigure } from "./simulationFigure.ts";
@@ -45,7 +46,7 @@ export interface FigureEntry<S extends FigureSource = FigureSource> {
 /** An entry of any source (a union, so each builder keeps its own input type). */
 export type AnyFigureEntry = { [S in FigureSource]: FigureEntry<S> }[FigureSource];
 
-export const FIGURE_KINDS = ["profile-fit", "residuals", "group-values", "ensemble", "sigma-x", "boundary", "decoding-map", "trend", "power", "build-up", "build-up-residuals", "profile-likelihood-k", "accumulation-time", "frap-recovery", "frap-residuals", "simulation"] as const;
+export const FIGURE_KINDS = ["profile-fit", "residuals", "group-values", "ensemble", "sigma-x", "boundary", "decoding-map", "trend", "power", "build-up", "build-up-residuals", "profile-likelihood-k", "dk-region", "accumulation-time", "frap-recovery", "frap-residuals", "simulation"] as const;
 export type FigureKind = (typeof FIGURE_KINDS)[number];
 
 const entry = <S extends FigureSource>(title: string, source: S, builder: FigureEntry<S>["builder"]): FigureEntry<S> => ({ title, source, builder });
@@ -64,6 +65,7 @@ export const FIGURE_REGISTRY = {
   "build-up": entry("Build-up profiles with the joint fit", "dynamics", (b) => buildUpFigure(b)),
   "build-up-residuals": entry("Residuals of the build-up fit", "dynamics", (b) => buildUpResidualFigure(b)),
   "profile-likelihood-k": entry("Profile likelihood of k", "dynamics", (b) => profileLikelihoodFigure(b)),
+  "dk-region": entry("D and k jointly: 95% region", "dynamics", (b) => dkRegionFigure(b)),
   "accumulation-time": entry("Local accumulation time τ(x)", "dynamics", (b) => accumulationTimeFigure(b)),
   "frap-recovery": entry("FRAP recovery curves with fits", "frap", (f) => frapRecoveryFigure(f)),
   "frap-residuals": entry("Residuals of the FRAP fits", "frap", (f) => frapResidualFigure(f)),

@@ -21,6 +21,7 @@ export * from "./figureRegistry.ts";
 export * from "./dynamicsInputs.ts";
 export * from "./buildUpFigure.ts";
 export * from "./profileLikelihoodFigure.ts";
+export * from "./dkRegionFigure.ts";
 export * from "./accumulationTimeFigure.ts";
 export * from "./frapRecoveryFigure.ts";
 export * from "./simulationFigure.ts";

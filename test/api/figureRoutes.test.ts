@@ -30,7 +30,7 @@ describe("GET /api/figures/:kind", () => {
       ensemble: `analysis=${seeded.precisionGlm.analysis_id}`, "sigma-x": `analysis=${seeded.precisionGlm.analysis_id}`, boundary: `analysis=${seeded.precisionGlm.analysis_id}`,
       "decoding-map": `analysis=${seeded.precisionGlm.analysis_id}`, trend: `analysis=${seeded.tracking.analysis_id}`, power: `analysis=${seeded.plan.analysis_id}`,
       "build-up": `analysis=${dynamics.timeCourse.analysis_id}`, "build-up-residuals": `analysis=${dynamics.timeCourse.analysis_id}`,
-      "profile-likelihood-k": `analysis=${dynamics.timeCourse.analysis_id}`, "accumulation-time": `analysis=${dynamics.timeCourse.analysis_id}`,
+      "profile-likelihood-k": `analysis=${dynamics.timeCourse.analysis_id}`, "dk-region": `analysis=${dynamics.timeCourse.analysis_id}`, "accumulation-time": `analysis=${dynamics.timeCourse.analysis_id}`,
       "frap-recovery": `analysis=${dynamics.frap.analysis_id}`, "frap-residuals": `analysis=${dynamics.frap.analysis_id}`, simulation: `analysis=${dynamics.simulation.analysis_id}`,
     };
     return ids[kind];

@@ -50,7 +50,7 @@ describe("Dynamics view in chromium", () => {
     await page.selectOption("[data-section=build-up] select[name=channel]", "glm-gfp");
     await page.click("[data-role=fit-build-up]");
     await page.waitForSelector("[data-role=build-up-result]", { timeout: 240_000 });
-    for (const figure of ["build-up", "build-up-residuals", "profile-likelihood-k", "accumulation-time"]) expect(await page.locator(`[data-role=build-up-result] canvas[data-figure=${figure}]`).count()).toBe(1);
+    for (const figure of ["build-up", "build-up-residuals", "profile-likelihood-k", "dk-region", "accumulation-time"]) expect(await page.locator(`[data-role=build-up-result] canvas[data-figure=${figure}]`).count()).toBe(1);
     expect(await page.locator("[data-role=build-up-result] [data-key=k_per_s] dd").innerText()).toMatch(/1\/s/);
     mkdirSync("test-output", { recursive: true });
     await page.screenshot({ path: "test-output/dynamics-view.png", fullPage: true });

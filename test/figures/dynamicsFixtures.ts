@@ -12,7 +12,8 @@ export const buildUpInput: BuildUpFigureInput = {
   k_per_s: est(2e-4, 1e-5),
   lambda_um: est(80, 2),
   accumulation_time_s: [0, 50, 100].map((x) => ({ x_um: x, ...est(2500 + 30 * x, 100) })),
-  profile_likelihood_k: [1e-4, 2e-4, 4e-4].map((k, i) => ({ k_per_s: k, deviance: [8, 0, 9][i] })),
+  correlation_D_k: 0.8,
+  profile_likelihood_k: [1e-4, 2e-4, 4e-4].map((k, i) => ({ k_per_s: k, deviance: [8, 0, 9][i], D_um2_per_s: 6400 * k * [0.95, 1, 1.06][i] })),
   profile_interval_k: [1.5e-4, 3e-4],
   points: [600, 3600].flatMap((t) => [0, 20, 40].map((x) => ({ x_um: x, t_s: t, value: 100 * Math.exp(-x / 80) * (t / 3600) + 1, fitted: 100 * Math.exp(-x / 80) * (t / 3600) }))),
 };

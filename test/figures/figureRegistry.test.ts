@@ -16,7 +16,7 @@ describe("figure registry", () => {
     }
     expect(figureKindsFor("precision")).toEqual(["ensemble", "sigma-x", "boundary", "decoding-map"]);
     expect(figureKindsFor("fit")).toEqual(["profile-fit", "residuals"]);
-    expect(figureKindsFor("dynamics")).toEqual(["build-up", "build-up-residuals", "profile-likelihood-k", "accumulation-time"]);
+    expect(figureKindsFor("dynamics")).toEqual(["build-up", "build-up-residuals", "profile-likelihood-k", "dk-region", "accumulation-time"]);
   });
 
   it("buildFigure passes the scale option to the profile-fit builder", () => {

@@ -7,7 +7,7 @@ import { el, replaceChildren } from "../../components/el.ts";
 import { button, field, numberInput, numberValue, select } from "../../components/formFields.ts";
 import { runJob } from "../../components/jobProgress.ts";
 import { infoNotice, warningNotice } from "../../components/notice.ts";
-import { accumulationTimeFigure, buildUpFigure, buildUpResidualFigure, profileLikelihoodFigure } from "../../figures/index.ts";
+import { accumulationTimeFigure, buildUpFigure, buildUpResidualFigure, dkRegionFigure, profileLikelihoodFigure } from "../../figures/index.ts";
 import { quantityTiles } from "./quantityTiles.ts";
 
 function groupResult(g: TimeCourseGroup): HTMLElement {
@@ -32,6 +32,7 @@ function groupResult(g: TimeCourseGroup): HTMLElement {
       chartPanel("Build-up with the joint fit", buildUpFigure(g), { ...source, kind: "build-up" }),
       chartPanel("Residuals", buildUpResidualFigure(g), { ...source, kind: "build-up-residuals" }),
       chartPanel("Profile likelihood of k", profileLikelihoodFigure(g), { ...source, kind: "profile-likelihood-k" }, "D is re-fitted at each k; a curve that stays under the dashed line on one side means k is not identified."),
+      chartPanel("D and k jointly", dkRegionFigure(g), { ...source, kind: "dk-region" }, "A region stretched along the dotted line λ = √(D/k) means the data fix λ but not D and k separately."),
       chartPanel("Local accumulation time", accumulationTimeFigure(g), { ...source, kind: "accumulation-time" }),
     ),
   );
