@@ -23,6 +23,8 @@ describe("excluding an embryo from a precision flag, in chromium", () => {
     await page.uncheck("input[name=genotypes][value=wt]");
     await page.check('input[name=genotypes][value="glm-2x"]');
     await page.check("input[name=channels][value=glm]");
+    // Per-embryo min–max normalisation makes the demo's brightest-offset embryo of glm-2x stand out (an outlier flag to act on).
+    await page.selectOption("select[name=normalisation]", "minmax");
     await page.fill("input[name=bootstrap]", "200");
     await page.click("[data-role=start-precision]");
     await page.waitForSelector("[data-role=precision-done]", { timeout: 60_000 });
