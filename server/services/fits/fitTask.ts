@@ -96,12 +96,8 @@ export function runFitTask(input: FitTaskInput, progress: ProgressCallback = () 
   }
   const globals: GlobalFitOutput[] = [];
   const groupComparisons: FitTaskOutput["groupComparisons"] = [];
+  const groups = byGenotypeAndChannel(input.profiles);
   if (input.global) {
-    const groups = new Map<string, FitTaskProfile[]>();
-    for (const p of input.profiles) {
-      const key = JSON.stringify([p.genotype, p.channel]);
-      groups.set(key, [...(groups.get(key) ?? []), p]);
-    }
     for (const [key, members] of groups) {
       const [genotype, channel] = JSON.parse(key) as [string, string];
       const replicates = members.map((m) => ({ x: m.x, y: m.y, lengthUm: m.lengthUm ?? undefined }));
@@ -120,11 +116,6 @@ export function runFitTask(input: FitTaskInput, progress: ProgressCallback = () 
   }
   const preferences: FitTaskOutput["preferences"] = [];
   if (checkModels) {
-    const groups = new Map<string, FitTaskProfile[]>();
-    for (const p of input.profiles) {
-      const key = JSON.stringify([p.genotype, p.channel]);
-      groups.set(key, [...(groups.get(key) ?? []), p]);
-    }
     for (const [key, members] of groups) {
       const [genotype, channel] = JSON.parse(key) as [string, string];
       for (const model of input.models) {
@@ -151,4 +142,14 @@ function compareOnWindow(p: FitTaskProfile, fit: ProfileFit, options: ResolvedFi
     if (other.ok && other.aicc !== null) candidates.push({ model, aicc: other.aicc });
   }
   return akaikeWeights(candidates);
+}
+
+/** Profiles grouped by genotype × channel, keyed by JSON of the pair (global fits and the model check use the same groups). */
+function byGenotypeAndChannel(profiles: readonly FitTaskProfile[]): Map<string, FitTaskProfile[]> {
+  const groups = new Map<string, FitTaskProfile[]>();
+  for (const p of profiles) {
+    const key = JSON.stringify([p.genotype, p.channel]);
+    groups.set(key, [...(groups.get(key) ?? []), p]);
+  }
+  return groups;
 }
