@@ -3,9 +3,10 @@ import { fieldId } from "./formFields.ts";
 
 /**
  * An area that takes files by drag and drop or from a file picker (a real,
- * keyboard-reachable <input type="file">). Calls `onFiles` with every batch.
+ * keyboard-reachable <input type="file">). Calls `onFiles` with every batch;
+ * `title` says what belongs there.
  */
-export function dropZone(onFiles: (files: File[]) => void): HTMLElement {
+export function dropZone(onFiles: (files: File[]) => void, title = "Drop profile exports here (CSV or TSV), with an optional metadata side file"): HTMLElement {
   const id = fieldId("files");
   const input = el("input", { type: "file", id, multiple: true, accept: ".csv,.tsv,.txt,text/csv,text/tab-separated-values,text/plain", "data-role": "file-input" });
   input.addEventListener("change", () => {
@@ -15,7 +16,7 @@ export function dropZone(onFiles: (files: File[]) => void): HTMLElement {
   const zone = el(
     "div",
     { class: "drop-zone", "data-role": "drop-zone" },
-    el("p", { class: "drop-title" }, "Drop profile exports here (CSV or TSV), with an optional metadata side file"),
+    el("p", { class: "drop-title" }, title),
     el("label", { for: id, class: "btn btn-secondary" }, "Choose files…"),
     input,
   );

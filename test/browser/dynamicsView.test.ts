@@ -34,6 +34,8 @@ describe("Dynamics view in chromium", () => {
 
   it("the demo FRAP curves are fitted and shown with the stored analysis's D, and the combine form receives its id", async () => {
     const { page } = s;
+    // The FRAP drop area asks for recovery tables, not profile exports (common practice, no source: say what belongs there).
+    expect(await page.locator("[data-section=frap] .drop-title").innerText()).toContain("FRAP recovery tables");
     await page.click("[data-role=fit-demo-frap]");
     await page.waitForSelector("[data-role=frap-result]", { timeout: 120_000 });
     const list = await s.api<{ analyses: { id: number; kind: string }[] }>("/api/dynamics/analyses");

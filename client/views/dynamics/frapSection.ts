@@ -86,7 +86,7 @@ export function frapSection(onResult: (id: number) => void): HTMLElement {
     dropZone((f) => {
       files = f;
       chosen.textContent = `${f.length} file${f.length === 1 ? "" : "s"}: ${f.map((x) => x.name).join(", ")}`;
-    }),
+    }, "Drop FRAP recovery tables here (CSV or TSV), one file per cell"),
     chosen,
     el("div", { class: "form-row" }, field("Bleach geometry", geometry), field("Radius or width (µm)", size, "spot radius or strip width"), field("Rod: strip from (µm)", rodFrom), field("Rod: strip to (µm)", rodTo), field("Rod length (µm)", rodLength), field("Turnover", turnover, "ignoring degradation makes D come out too high")),
     el("div", { class: "actions" }, button("Fit FRAP files", () => void runFiles(), "primary", { "data-role": "fit-frap" }), button("Use the demo FRAP curves", () => void runDemo(), "secondary", { "data-role": "fit-demo-frap" })),
