@@ -1,5 +1,6 @@
 import type { Db } from "./connection.ts";
 import { fromBlob } from "./floatBlob.ts";
+import { embryoAttributesOf } from "./embryoAttributesRow.ts";
 
 /** Which profiles to read; every field optional, combined with AND. */
 export interface ProfileFilter {
@@ -98,13 +99,7 @@ function toSummary(r: Record<string, unknown>, rangeUm: [number, number]): Profi
     profileId: r.profile_id as number,
     embryoId: r.embryo_id as number,
     embryo: r.label as string,
-    genotype: r.genotype as string,
-    stage: r.stage as string | null,
-    ageS: r.age_s as number | null,
-    lengthUm: r.length_um as number | null,
-    dosage: r.dosage as number | null,
-    session: r.session as string | null,
-    metadata: JSON.parse(r.metadata_json as string),
+    ...embryoAttributesOf(r),
     channel: r.channel as string,
     timeS: r.time_s as number | null,
     positionUnit: r.position_unit as ProfileSummary["positionUnit"],

@@ -1,4 +1,5 @@
 import type { Db } from "./connection.ts";
+import { embryoAttributesOf } from "./embryoAttributesRow.ts";
 import { fromBlob } from "./floatBlob.ts";
 
 /** An embryo as stored, with the profiles it already has, for comparing an incoming file against. */
@@ -43,13 +44,7 @@ export function findStoredEmbryos(db: Db, labels: string[]): Map<string, StoredE
     out.set(label, {
       id: r.id as number,
       label,
-      genotype: r.genotype as string,
-      stage: r.stage as string | null,
-      ageS: r.age_s as number | null,
-      lengthUm: r.length_um as number | null,
-      dosage: r.dosage as number | null,
-      session: r.session as string | null,
-      metadata: JSON.parse(r.metadata_json as string),
+      ...embryoAttributesOf(r),
       firstFile: r.file_name as string,
       profiles: (profiles.all(r.id) as Record<string, unknown>[]).map((p) => ({
         importId: p.import_id as number,
